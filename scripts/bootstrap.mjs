@@ -1,0 +1,35 @@
+#!/usr/bin/env node
+// Needs nothing but Node: installs the dependencies when they are missing or stale, then hands over
+// to the TypeScript script for the command (start, test, dev, bench).
+import { spawnSync, spawn } from 'node:child_process';
+import { existsSync, statSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import path from 'node:path';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const command = process.argv[2];
+const known = ['start', 'test', 'dev', 'bench'];
+if (!known.includes(command)) {
+  console.error(`usage: node scripts/bootstrap.mjs <${known.join('|')}>`);
+  process.exit(2);
+}
+
+const installed = path.join(root, 'node_modules', '.package-lock.json');
+const lock = path.join(root, 'package-lock.json');
+const stale = !existsSync(installed) || statSync(installed).mtimeMs < statSync(lock).mtimeMs;
+if (stale) {
+  console.log('[breakover] installing dependencies (npm ci)…');
+  const r = spawnSync('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root, stdio: 'inherit' });
+  if (r.status !== 0) {
+    console.error('[breakover] npm ci failed; see the messages above');
+    process.exit(r.status ?? 1);
+  }
+}
+
+const tsx = path.join(root, 'node_modules', '.bin', 'tsx');
+const child = spawn(tsx, [path.join(root, 'scripts', `${command}.ts`), ...process.argv.slice(3)], {
+  cwd: root,
+  stdio: 'inherit',
+});
+for (const sig of ['SIGINT', 'SIGTERM']) process.on(sig, () => child.kill(sig));
+child.on('exit', (code, signal) => process.exit(code ?? (signal ? 1 : 0)));

@@ -1,0 +1,71 @@
+// npm start: database, migrations, demo data, client build, then the server. Stops all of it on Ctrl-C.
+import { spawn } from 'node:child_process';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { runMigrations } from '../server/db/migrate.js';
+import { createDatabase, createPool } from '../server/db/client.js';
+import { systemClock } from '../server/clock.js';
+import { seedDemoIfEmpty } from '../server/seed/index.js';
+import { DEMO_PASSWORD, DEMO_SIGN_INS } from '../server/seed/demo-people.js';
+import { localDatabase, persistentSecret } from './lib/local-db.js';
+import { buildClientIfStale } from './lib/build.js';
+import { portOrFree } from './lib/ports.js';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const dataRoot = path.resolve(process.env.BREAKOVER_DATA_DIR ?? path.join(root, '.data'));
+const log = (s: string) => console.log(`[breakover] ${s}`);
+
+async function main() {
+  const db = await localDatabase(root, dataRoot, log);
+  log(`database: ${db.where}`);
+  await runMigrations(db.url);
+  const pool = createPool(db.url, 2);
+  if (await seedDemoIfEmpty(createDatabase(pool), systemClock)) log('seeded the demo scenario');
+  await pool.end();
+  if (process.env.SKIP_BUILD !== '1') buildClientIfStale(root, log);
+
+  const port = process.env.PORT ? Number(process.env.PORT) : await portOrFree(3000);
+  const publicUrl = process.env.PUBLIC_URL ?? `http://localhost:${port}`;
+  const env = {
+    ...process.env,
+    DATABASE_URL: db.url,
+    PORT: String(port),
+    PUBLIC_URL: publicUrl,
+    EXTRA_ORIGINS: [process.env.EXTRA_ORIGINS, `http://127.0.0.1:${port}`].filter(Boolean).join(','),
+    SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(dataRoot),
+    MAIL_OUTBOX_DIR: process.env.MAIL_OUTBOX_DIR ?? path.join(root, 'mail-outbox'),
+    STATIC_DIR: path.join(root, 'dist'),
+  };
+  const server = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server', 'index.ts')], { cwd: root, env, stdio: ['ignore', 'pipe', 'inherit'] });
+  server.stdout.on('data', (chunk: Buffer) => {
+    process.stdout.write(chunk);
+    if (chunk.toString().includes('listening on')) announce(publicUrl);
+  });
+
+  let stopping = false;
+  const stop = (signal: NodeJS.Signals) => {
+    if (stopping) return;
+    stopping = true;
+    log(`${signal}: stopping the server and the database`);
+    server.kill('SIGTERM');
+  };
+  process.on('SIGINT', () => stop('SIGINT'));
+  process.on('SIGTERM', () => stop('SIGTERM'));
+  server.on('exit', (code) => {
+    db.stop();
+    log('stopped');
+    process.exit(stopping ? 0 : (code ?? 1));
+  });
+}
+
+function announce(url: string) {
+  const width = Math.max(...DEMO_SIGN_INS.map((s) => s.role.length));
+  console.log(`\n  Breakover is running at ${url}\n\n  Demo sign-ins (password for all: ${DEMO_PASSWORD})`);
+  for (const s of DEMO_SIGN_INS) console.log(`    ${s.role.padEnd(width)}  ${s.email}`);
+  console.log('\n  Press Ctrl-C to stop.\n');
+}
+
+main().catch((err) => {
+  console.error(`[breakover] could not start: ${(err as Error).message}`);
+  process.exit(1);
+});

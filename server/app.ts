@@ -1,0 +1,86 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import express, { Router } from 'express';
+import helmet from 'helmet';
+import rateLimit from 'express-rate-limit';
+import type pg from 'pg';
+import type { Config } from './config.js';
+import { systemClock, type Clock } from './clock.js';
+import { createDatabase, createPool } from './db/client.js';
+import { createMailer, type Mailer } from './mail/mailer.js';
+import { makeAudit } from './audit/audit.service.js';
+import type { Deps } from './deps.js';
+import { buildRouteTable, buildServices } from './features.js';
+import { mountRoutes } from './routing.js';
+import { actorMiddleware, sessionMiddleware } from './middleware/session.js';
+import { originCheck } from './middleware/csrf.js';
+import { errorHandler, notFoundApi } from './middleware/errors.js';
+
+export interface AppOptions {
+  config: Config;
+  clock?: Clock;
+  pool?: pg.Pool;
+  mailer?: Mailer;
+}
+
+/** Builds the Express app and everything behind it; index.ts listens, tests use it through supertest. */
+export function createApp(opts: AppOptions) {
+  const { config } = opts;
+  const clock = opts.clock ?? systemClock;
+  const pool = opts.pool ?? createPool(config.databaseUrl);
+  const db = createDatabase(pool);
+  const mailer = opts.mailer ?? createMailer(db, clock, config.mail);
+  const deps: Deps = { db, pool, clock, config, mailer, audit: makeAudit(clock) };
+  const services = buildServices(deps);
+  const routeTable = buildRouteTable(deps, services);
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'object-src': ["'none'"],
+          'frame-ancestors': ["'none'"],
+          'upgrade-insecure-requests': config.publicUrl.startsWith('https:') ? [] : null,
+        },
+      },
+    }),
+  );
+
+  const api = Router();
+  api.use(express.json({ limit: '256kb' }));
+  api.use(originCheck(config.allowedOrigins));
+  api.use(sessionMiddleware(pool, config));
+  const limiter = rateLimit({
+    windowMs: config.signIn.rateWindowMs,
+    limit: config.signIn.rateLimit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many attempts from this address; wait a few minutes.' } });
+    },
+  });
+  api.post('/session', limiter);
+  api.post('/password/forgot', limiter);
+  api.use(actorMiddleware(services.auth));
+  mountRoutes(api, routeTable);
+  api.use(notFoundApi);
+  app.use('/api', api);
+
+  const staticDir = config.staticDir;
+  if (existsSync(path.join(staticDir, 'index.html'))) {
+    app.use(express.static(staticDir, { index: false, maxAge: '1h' }));
+    app.get(/^\/(?!api\/).*/, (_req, res) => res.sendFile(path.join(staticDir, 'index.html')));
+  }
+  app.use(errorHandler);
+  app.locals.routeTable = routeTable;
+
+  return { app, deps, services, routeTable, close: () => pool.end() };
+}

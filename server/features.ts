@@ -1,0 +1,30 @@
+import type { Deps } from './deps.js';
+import type { RouteDef } from './routing.js';
+import { makeAuthService } from './auth/auth.service.js';
+import { authRoutes } from './auth/auth.routes.js';
+import { healthRoutes } from './health.routes.js';
+import { makePeopleService } from './people/people.service.js';
+import { peopleRoutes } from './people/people.routes.js';
+import { makeSitesService } from './sites/sites.service.js';
+import { sitesRoutes } from './sites/sites.routes.js';
+import { mailRoutes } from './mail/mail.routes.js';
+
+/** Every feature's services, built once per app. */
+export function buildServices(deps: Deps) {
+  const auth = makeAuthService(deps);
+  const people = makePeopleService(deps, auth);
+  const sites = makeSitesService(deps);
+  return { auth, people, sites };
+}
+export type Services = ReturnType<typeof buildServices>;
+
+/** The one route table: the router is built from it and the permission-matrix test reads it. */
+export function buildRouteTable(deps: Deps, s: Services): RouteDef[] {
+  return [
+    ...healthRoutes(deps),
+    ...authRoutes(s.auth),
+    ...peopleRoutes(s.people),
+    ...sitesRoutes(s.sites),
+    ...mailRoutes(deps),
+  ];
+}

@@ -1,0 +1,28 @@
+import { loadConfig } from './config.js';
+import { createApp } from './app.js';
+
+const config = loadConfig();
+const { app, close } = createApp({ config });
+const server = app.listen(config.port, config.host, () => {
+  const addr = server.address();
+  const port = typeof addr === 'object' && addr ? addr.port : config.port;
+  console.log(`[server] listening on http://${config.host}:${port}`);
+});
+
+let stopping = false;
+async function shutdown(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  console.log(`[server] ${signal}: closing`);
+  server.close(async () => {
+    await close();
+    process.exit(0);
+  });
+  server.closeAllConnections?.();
+  setTimeout(() => process.exit(1), 10_000).unref();
+}
+process.on('SIGINT', () => void shutdown('SIGINT'));
+process.on('SIGTERM', () => void shutdown('SIGTERM'));
+process.on('unhandledRejection', (reason) => {
+  console.error('[server] unhandled rejection', reason);
+});

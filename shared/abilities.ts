@@ -1,0 +1,58 @@
+import { AbilityBuilder, createMongoAbility, subject, type MongoAbility, type ForcedSubject, type MongoQuery, type AnyMongoAbility } from '@casl/ability';
+import type { Role } from './roles.js';
+
+export type Action = 'manage' | 'create' | 'read' | 'update' | 'delete' | 'invite' | 'assignRole';
+export type SubjectName = 'User' | 'Site' | 'MailLog' | 'AuditLog' | 'all';
+export type Subject = SubjectName | (ForcedSubject<Exclude<SubjectName, 'all'>> & Record<string, any>);
+// Conditions are plain Mongo-style queries over a record's own fields (id, siteId, userId, …).
+export type AppAbility = MongoAbility<[Action, Subject], MongoQuery<Record<string, any>>>;
+
+/** Tags a record with its subject type for object-level checks. */
+export function subjectOf(type: Exclude<SubjectName, 'all'>, record: object): Subject {
+  return subject(type, { ...record } as Record<string, any>);
+}
+
+/** What the server knows about the signed-in person when deciding. */
+export interface Actor {
+  id: string;
+  roles: readonly Role[];
+  siteId: string;
+  /** Own site plus the sites an assessor or manager covers. */
+  siteIds: readonly string[];
+}
+
+/** One definition for server and client. Object rules use the record's own fields (id, siteId, userId). */
+export function defineAbilityFor(actor: Actor | null): AppAbility {
+  // The builder is untyped on conditions (CASL infers `never` for string subjects); the result is typed.
+  const { can, cannot, build } = new AbilityBuilder<AnyMongoAbility>(createMongoAbility);
+  if (!actor) return build() as AppAbility;
+  const has = (r: Role) => actor.roles.includes(r);
+  const sites = [...actor.siteIds];
+
+  can('read', 'User', { id: actor.id });
+  can('update', 'User', ['name'], { id: actor.id });
+  can('read', 'Site');
+
+  if (has('manager')) {
+    can('read', 'User', { siteId: { $in: sites } });
+    can(['invite', 'update', 'assignRole'], 'User', { siteId: { $in: sites } });
+  }
+  if (has('auditor')) {
+    // Auditors read everything and write nothing.
+    can('read', 'all');
+    if (!has('admin')) cannot('read', 'MailLog');
+  }
+  if (has('admin')) {
+    can(['read', 'invite', 'update', 'assignRole'], 'User');
+    can('manage', 'Site');
+    can('read', 'MailLog');
+  }
+  return build() as AppAbility;
+}
+
+/** Roles each granting role may hand out; an admin may give any. */
+export function grantableRoles(actor: Actor): Role[] {
+  if (actor.roles.includes('admin')) return ['technician', 'assessor', 'manager', 'auditor', 'admin'];
+  if (actor.roles.includes('manager')) return ['technician', 'assessor'];
+  return [];
+}

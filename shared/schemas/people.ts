@@ -1,0 +1,51 @@
+import { z } from 'zod';
+import { email, roleSchema } from './auth.js';
+import { isoDate, pageQuery } from './common.js';
+
+const name = z.string().trim().min(1, 'enter a name').max(120, 'use at most 120 characters');
+
+export const inviteBody = z.object({
+  email,
+  name,
+  siteId: z.uuid({ message: 'choose a site' }),
+  roles: z.array(roleSchema).min(1, 'give at least one role').max(5),
+  coveredSiteIds: z.array(z.uuid()).max(100).default([]),
+  accessEndsOn: isoDate.optional(),
+});
+
+export const updatePersonBody = z
+  .object({
+    name: name.optional(),
+    siteId: z.uuid({ message: 'choose a site' }).optional(),
+    roles: z.array(roleSchema).min(1, 'give at least one role').max(5).optional(),
+    coveredSiteIds: z.array(z.uuid()).max(100).optional(),
+    active: z.boolean().optional(),
+    deactivatedReason: z.string().trim().min(3, 'give a reason').max(500).optional(),
+    accessEndsOn: isoDate.nullable().optional(),
+  })
+  .strict();
+
+export const peopleQuery = pageQuery.extend({
+  siteId: z.uuid().optional(),
+  role: roleSchema.optional(),
+  active: z.enum(['true', 'false']).optional(),
+  sort: z.enum(['name', 'email', 'site', 'createdAt']).default('name'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+});
+
+export const personRow = z.object({
+  id: z.string(),
+  email: z.string(),
+  name: z.string(),
+  siteId: z.string(),
+  siteName: z.string(),
+  roles: z.array(roleSchema),
+  coveredSiteIds: z.array(z.string()),
+  active: z.boolean(),
+  accessEndsOn: z.string().nullable(),
+  hasPassword: z.boolean(),
+  createdAt: z.string(),
+});
+export type PersonRow = z.infer<typeof personRow>;
+export type InviteBody = z.infer<typeof inviteBody>;
+export type UpdatePersonBody = z.infer<typeof updatePersonBody>;

@@ -1,0 +1,66 @@
+import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import request from 'supertest';
+import { afterAll } from 'vitest';
+import { loadConfig } from '../../server/config.js';
+import { createApp } from '../../server/app.js';
+import { SettableClock } from '../../server/clock.js';
+import pg from 'pg';
+import { seedDemoIfEmpty } from '../../server/seed/index.js';
+import { createTestDatabase } from './db.js';
+
+export const PUBLIC_URL = 'http://breakover.test';
+
+export interface TestAppOptions {
+  seed?: boolean;
+  start?: string;
+  env?: Record<string, string>;
+}
+
+/**
+ * The real app on a fresh database of its own, with a settable clock and its own outbox folder.
+ * Registers its own clean-up; call once per test file (in beforeAll or at module level with await).
+ */
+export async function makeTestApp(opts: TestAppOptions = {}) {
+  const database = await createTestDatabase();
+  const outbox = mkdtempSync(path.join(os.tmpdir(), 'breakover-outbox-'));
+  const clock = new SettableClock(opts.start ?? '2026-03-02T09:00:00Z');
+  const config = loadConfig({
+    DATABASE_URL: database.url,
+    PUBLIC_URL,
+    SESSION_SECRET: 'test-secret-'.padEnd(40, 'x'),
+    MAIL_OUTBOX_DIR: outbox,
+    SIGNIN_RATE_LIMIT: '1000',
+    STATIC_DIR: path.join(os.tmpdir(), 'breakover-no-static'),
+    ...opts.env,
+  });
+  const built = createApp({ config, clock });
+  if (opts.seed !== false) await seedDemoIfEmpty(built.deps.db, clock);
+  afterAll(async () => {
+    await built.close();
+    await database.drop();
+  });
+  return {
+    ...built,
+    clock,
+    config,
+    outbox,
+    database,
+    request: () => request(built.app),
+    agent: () => request.agent(built.app),
+    /** A connection as the database owner, bypassing the application role: for tamper tests only. */
+    ownerQuery: async (text: string, params: unknown[] = []) => {
+      const c = new pg.Client({ connectionString: database.ownerUrl });
+      await c.connect();
+      try {
+        return await c.query(text, params);
+      } finally {
+        await c.end();
+      }
+    },
+    mails: () => readdirSync(outbox).filter((f) => f.endsWith('.eml')).sort().map((f) => readFileSync(path.join(outbox, f), 'utf8')),
+  };
+}
+
+export type TestApp = Awaited<ReturnType<typeof makeTestApp>>;

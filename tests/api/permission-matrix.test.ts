@@ -1,0 +1,62 @@
+import { describe, it, expect, beforeAll } from 'vitest';
+import { makeTestApp, type TestApp } from '../support/app.js';
+import { oneRoleAgents } from '../support/role-users.js';
+import { ROLES, type Role } from '../../shared/roles.js';
+import type { RouteDef } from '../../server/routing.js';
+import type { MatrixRows } from './matrix/types.js';
+
+// Every feature adds its rows in a file of its own under ./matrix/.
+const files = import.meta.glob<{ rows: MatrixRows }>('./matrix/*.ts', { eager: true });
+const matrix: MatrixRows = Object.assign({}, ...Object.values(files).map((f) => f.rows ?? {}));
+
+let t: TestApp;
+let users: Awaited<ReturnType<typeof oneRoleAgents>>;
+const agents = new Map<Role, Awaited<ReturnType<typeof users.signInAs>>>();
+const FAKE_ID = '00000000-0000-4000-8000-000000000000';
+
+beforeAll(async () => {
+  t = await makeTestApp();
+  users = await oneRoleAgents(t);
+});
+
+const keyOf = (r: RouteDef) => `${r.method.toUpperCase()} ${r.path}`;
+const urlOf = (r: RouteDef) => '/api' + r.path.replace(/:[a-zA-Z]+/g, FAKE_ID);
+
+async function agentFor(role: Role) {
+  if (!agents.has(role)) agents.set(role, await users.signInAs(role));
+  return agents.get(role)!;
+}
+
+async function call(agent: ReturnType<TestApp['agent']>, r: RouteDef) {
+  const req = agent[r.method](urlOf(r));
+  return r.method === 'get' || r.method === 'delete' ? req : req.send({});
+}
+
+describe('permission matrix', () => {
+  it('when a route exists, then it has a row in the matrix (and every row names a route)', () => {
+    const keys = (t.routeTable as RouteDef[]).map(keyOf);
+    expect(keys.filter((k) => !(k in matrix))).toEqual([]);
+    expect(Object.keys(matrix).filter((k) => !keys.includes(k))).toEqual([]);
+  });
+
+  it('when signed out, then every non-public route answers 401', async () => {
+    for (const r of t.routeTable as RouteDef[]) {
+      if (matrix[keyOf(r)] === 'public') continue;
+      const res = await call(t.agent(), r);
+      expect.soft(res.status, `${keyOf(r)} signed out`).toBe(401);
+    }
+  });
+
+  it('when signed in with one role, then each route is allowed or refused with 403 exactly as the matrix says', async () => {
+    for (const r of t.routeTable as RouteDef[]) {
+      const row = matrix[keyOf(r)];
+      for (const role of ROLES) {
+        const allowed = row === 'public' || row === 'signed-in' || row.includes(role);
+        const res = await call(await agentFor(role), r);
+        if (r.method === 'delete' && r.path === '/session') agents.delete(role);
+        if (allowed) expect.soft([401, 403], `${keyOf(r)} as ${role}: ${res.status} ${JSON.stringify(res.body)}`).not.toContain(res.status);
+        else expect.soft(res.status, `${keyOf(r)} as ${role}`).toBe(403);
+      }
+    }
+  });
+});

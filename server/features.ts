@@ -8,13 +8,15 @@ import { peopleRoutes } from './people/people.routes.js';
 import { makeSitesService } from './sites/sites.service.js';
 import { sitesRoutes } from './sites/sites.routes.js';
 import { mailRoutes } from './mail/mail.routes.js';
+import { makeSignatures } from './signatures/signatures.service.js';
 
 /** Every feature's services, built once per app. */
 export function buildServices(deps: Deps) {
   const auth = makeAuthService(deps);
   const people = makePeopleService(deps, auth);
   const sites = makeSitesService(deps);
-  return { auth, people, sites };
+  const signatures = makeSignatures(deps, auth);
+  return { auth, people, sites, signatures };
 }
 export type Services = ReturnType<typeof buildServices>;
 

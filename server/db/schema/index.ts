@@ -1,1 +1,2 @@
 export * from './core.js';
+export * from './signatures.js';

@@ -16,7 +16,11 @@ export function leadResistanceOhm(lengthM: number, csaMm2: number, method: 'tabl
   return (COPPER_RESISTIVITY * lengthM) / csaMm2;
 }
 
-export function earthContinuityPreset(lengthM: number, csaMm2: number, method: 'table' | 'resistivity' = 'table'): LimitPreset {
+export function earthContinuityPreset(
+  lengthM: number,
+  csaMm2: number,
+  method: 'table' | 'resistivity' = 'table',
+): Extract<LimitPreset, { comparison: 'max' }> {
   const inTable = method === 'table' && String(csaMm2) in LEAD_RESISTANCE_MOHM_PER_M;
   const lead = leadResistanceOhm(lengthM, csaMm2, method);
   return {

@@ -1,0 +1,56 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import type { Server } from 'node:http';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll } from 'vitest';
+import { freePort } from '../../scripts/lib/ports.js';
+import { makeTestApp, type TestAppOptions } from './app.js';
+import { DEMO_PASSWORD } from './people.js';
+
+const CHROMIUM_FLAGS = [
+  '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking', '--disable-component-update',
+  '--disable-sync', '--no-first-run', '--disable-quic',
+];
+
+/**
+ * The real app with the built client (dist/) on a free loopback port, and Debian's Chromium driven by
+ * playwright-core. One per e2e test file; cleans up after the file.
+ */
+export async function startBrowserApp(opts: TestAppOptions = {}) {
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const t = await makeTestApp({ ...opts, env: { PUBLIC_URL: baseUrl, STATIC_DIR: path.resolve('dist'), ...opts.env } });
+  const server: Server = await new Promise((resolve) => {
+    const s = t.app.listen(port, '127.0.0.1', () => resolve(s));
+  });
+  const profile = mkdtempSync(path.join(os.tmpdir(), 'breakover-chromium-'));
+  const browser: Browser = await chromium.launch({
+    executablePath: process.env.TEST_CHROMIUM ?? '/usr/bin/chromium',
+    headless: true,
+    args: [...CHROMIUM_FLAGS, `--user-data-dir=${profile}`],
+  });
+  afterAll(async () => {
+    await browser.close();
+    await new Promise((r) => server.close(r));
+    rmSync(profile, { recursive: true, force: true });
+  });
+
+  async function newPage(): Promise<Page> {
+    const context = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1280, height: 860 } });
+    return context.newPage();
+  }
+
+  /** Signs in through the sign-in form, as a person would. */
+  async function signInPage(email: string, password = DEMO_PASSWORD): Promise<Page> {
+    const page = await newPage();
+    await page.goto('/sign-in');
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(password);
+    await page.getByRole('button', { name: /sign in/i }).click();
+    await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+    return page;
+  }
+
+  return { ...t, baseUrl, browser, newPage, signInPage };
+}

@@ -42,7 +42,7 @@ async function main() {
     log(`test cluster on 127.0.0.1:${port}, template database migrated`);
     if (wantsBrowser) {
       ensureChromium();
-      buildClientIfStale(root, log);
+      if (process.env.SKIP_BUILD !== '1') buildClientIfStale(root, log);
     }
     code = await runVitest(args, {
       TEST_PG_ADMIN_URL: admin,

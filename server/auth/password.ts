@@ -37,7 +37,7 @@ export function passwordProblem(password: string, context: string[] = []): strin
   if (chars > PASSWORD_MAX) return `use at most ${PASSWORD_MAX} characters`;
   const lower = pw.toLowerCase();
   common ??= new Set(dictionary['passwords-common'].map((w) => w.toLowerCase()));
-  if (common.has(lower) || isRepeatOfCommon(lower, common)) return 'this password is too common; choose another';
+  if (common.has(lower) || isRepeatOfCommon(lower, common) || isSequence(lower)) return 'this password is too common; choose another';
   for (const word of ['breakover', ...context.map((c) => c.toLowerCase()).filter((c) => c.length >= 4)]) {
     if (lower.includes(word)) return 'do not use your name, e-mail or the name of this service in the password';
   }
@@ -52,4 +52,16 @@ function isRepeatOfCommon(pw: string, list: Set<string>): boolean {
     if (unit.repeat(pw.length / len) === pw && (len <= 4 || list.has(unit))) return true;
   }
   return false;
+}
+
+// "1234567890123456", "abcdefghijklmnop", "9876543210987654": one step up or down the keyboard row.
+function isSequence(pw: string): boolean {
+  const step = (a: string, b: string) => {
+    if (/\d/.test(a) && /\d/.test(b)) return (Number(b) - Number(a) + 10) % 10;
+    return b.charCodeAt(0) - a.charCodeAt(0);
+  };
+  const first = step(pw[0], pw[1]);
+  if (![1, -1, 9].includes(first)) return false;
+  for (let i = 2; i < pw.length; i++) if (step(pw[i - 1], pw[i]) !== first) return false;
+  return true;
 }

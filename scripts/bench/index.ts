@@ -1,0 +1,18 @@
+import type { Agent } from 'supertest';
+import type { createApp } from '../../server/app.js';
+import type { SettableClock } from '../../server/clock.js';
+import { peopleSuite } from './people.js';
+
+export interface BenchCase {
+  name: string;
+  scale: string;
+  target?: string;
+  runs?: number;
+  run: () => Promise<unknown>;
+}
+
+export type BenchContext = ReturnType<typeof createApp> & { clock: SettableClock; url: string; http: Agent };
+export type BenchSuite = (ctx: BenchContext) => Promise<BenchCase[]>;
+
+/** Each feature adds its suite here; suites run in order on one database and may build on earlier data. */
+export const BENCH_SUITES: BenchSuite[] = [peopleSuite];

@@ -2,7 +2,7 @@ import { AbilityBuilder, createMongoAbility, subject, type MongoAbility, type Fo
 import type { Role } from './roles.js';
 
 export type Action = 'manage' | 'create' | 'read' | 'update' | 'delete' | 'invite' | 'assignRole';
-export type SubjectName = 'User' | 'Site' | 'MailLog' | 'AuditLog' | 'all';
+export type SubjectName = 'User' | 'Site' | 'MailLog' | 'AuditLog' | 'Bench' | 'BenchCheck' | 'Instrument' | 'Evidence' | 'all';
 export type Subject = SubjectName | (ForcedSubject<Exclude<SubjectName, 'all'>> & Record<string, any>);
 // Conditions are plain Mongo-style queries over a record's own fields (id, siteId, userId, …).
 export type AppAbility = MongoAbility<[Action, Subject], MongoQuery<Record<string, any>>>;
@@ -32,10 +32,19 @@ export function defineAbilityFor(actor: Actor | null): AppAbility {
   can('read', 'User', { id: actor.id });
   can('update', 'User', ['name'], { id: actor.id });
   can('read', 'Site');
+  can('read', 'Evidence', { ownerId: actor.id });
+  if (has('technician') || has('assessor') || has('manager')) {
+    // Bench staff see the benches and instruments of their sites and record pre-use checks there.
+    can('read', ['Bench', 'Instrument', 'BenchCheck'], { siteId: { $in: sites } });
+    can('create', 'BenchCheck', { siteId: { $in: sites } });
+    can('create', 'Evidence', { ownerId: actor.id });
+  }
+  if (has('assessor') || has('manager')) can(['read', 'create'], 'Evidence', { siteId: { $in: sites } });
 
   if (has('manager')) {
     can('read', 'User', { siteId: { $in: sites } });
     can(['invite', 'update', 'assignRole'], 'User', { siteId: { $in: sites } });
+    can('manage', ['Bench', 'Instrument'], { siteId: { $in: sites } });
   }
   if (has('auditor')) {
     // Auditors read everything and write nothing.
@@ -46,6 +55,7 @@ export function defineAbilityFor(actor: Actor | null): AppAbility {
     can(['read', 'invite', 'update', 'assignRole'], 'User');
     can('manage', 'Site');
     can('read', 'MailLog');
+    can('read', 'Evidence');
   }
   return build() as AppAbility;
 }

@@ -1,0 +1,28 @@
+import { z } from 'zod';
+import { isoDate } from './common.js';
+
+/** A real calendar date (the common isoDate only checks the shape: 2026-02-30 would pass). */
+export const calendarDate = isoDate.refine((v) => {
+  const d = new Date(`${v}T00:00:00Z`);
+  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === v;
+}, 'not a calendar date');
+
+export const equipmentCode = z
+  .string()
+  .trim()
+  .min(2, 'use 2 to 20 characters')
+  .max(20, 'use 2 to 20 characters')
+  .regex(/^[A-Z0-9-]+$/, 'use capital letters, digits and hyphens');
+
+export const notes = z.string().trim().max(1000, 'use at most 1000 characters');
+
+/** How a bench or an instrument stands today: a refusal blocks its use for a practical, a warning is shown. */
+export const equipmentFlag = z.object({
+  code: z.string(),
+  severity: z.enum(['refuse', 'warn']),
+  field: z.string(),
+  message: z.string(),
+});
+export type EquipmentFlag = z.infer<typeof equipmentFlag>;
+
+export const activeFilter = z.enum(['true', 'false']).optional();

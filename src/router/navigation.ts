@@ -1,0 +1,23 @@
+import { mdiAccountCircleOutline, mdiAccountGroupOutline, mdiEmailFastOutline, mdiHomeOutline } from '@mdi/js';
+import type { Action, SubjectName } from '@shared/abilities';
+
+export interface NavItem {
+  title: string;
+  /** One line for the home page cards. */
+  description: string;
+  icon: string;
+  /** A route name from routes.ts. */
+  to: string;
+  /** Who sees the entry; keep it the same as the route's `meta.can`. */
+  can?: readonly [Action, SubjectName];
+  /** Left off the home page cards (the home page itself). */
+  hideOnHome?: boolean;
+}
+
+/** The navigation, in order. A later feature adds its entry with one line. */
+export const navItems: NavItem[] = [
+  { title: 'Home', description: 'Your starting page.', icon: mdiHomeOutline, to: 'home', hideOnHome: true },
+  { title: 'People', description: 'Invite people, give them roles and sites, and switch accounts off with a reason.', icon: mdiAccountGroupOutline, to: 'people', can: ['invite', 'User'] },
+  { title: 'Outgoing mail', description: 'Every message the portal has sent, with its full text.', icon: mdiEmailFastOutline, to: 'outbox', can: ['read', 'MailLog'] },
+  { title: 'Your account', description: 'Your details, roles and sites, and your password.', icon: mdiAccountCircleOutline, to: 'profile' },
+];

@@ -1,0 +1,27 @@
+import type { RouteRecordRaw } from 'vue-router';
+import type { Action, SubjectName } from '@shared/abilities';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Shown in the tab title and the top bar. */
+    title: string;
+    /** Open without signing in. */
+    public?: boolean;
+    /** Signed-in people are sent home instead (the sign-in page itself). */
+    guestOnly?: boolean;
+    /** What the person's ability must allow to open the page. */
+    can?: readonly [Action, SubjectName];
+  }
+}
+
+/** Every page, lazy-loaded. A new feature adds its line here and, if it has one, a line in navigation.ts. */
+export const routes: RouteRecordRaw[] = [
+  { path: '/sign-in', name: 'sign-in', component: () => import('@/views/SignInView.vue'), meta: { title: 'Sign in', public: true, guestOnly: true } },
+  { path: '/forgot-password', name: 'forgot-password', component: () => import('@/views/ForgotPasswordView.vue'), meta: { title: 'Forgotten password', public: true, guestOnly: true } },
+  { path: '/set-password', name: 'set-password', component: () => import('@/views/SetPasswordView.vue'), meta: { title: 'Set your password', public: true } },
+  { path: '/', name: 'home', component: () => import('@/views/HomeView.vue'), meta: { title: 'Home' } },
+  { path: '/profile', name: 'profile', component: () => import('@/views/ProfileView.vue'), meta: { title: 'Your account' } },
+  { path: '/people', name: 'people', component: () => import('@/views/PeopleView.vue'), meta: { title: 'People', can: ['invite', 'User'] } },
+  { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { title: 'Outgoing mail', can: ['read', 'MailLog'] } },
+  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { title: 'Page not found' } },
+];

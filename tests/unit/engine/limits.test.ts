@@ -1,11 +1,12 @@
 import { describe, it, expect } from 'vitest';
+import { EngineError } from '../../../shared/engine';
 import {
   LIMIT_PRESETS, COPPER_RESISTIVITY, earthContinuityPreset, evaluateAgainstPreset, findPreset, gfciMaxTripTimeS, leadResistanceOhm,
 } from '../../../shared/engine';
 
 const valueOf = (id: string) => {
   const p = findPreset(id);
-  if (!p || p.comparison === 'range') throw new Error(`no single-value preset ${id}`);
+  if (!p || p.comparison === 'range' || p.comparison === 'no-trip') throw new Error(`no single-value preset ${id}`);
   return p.value;
 };
 
@@ -16,7 +17,7 @@ describe('published acceptance limits', () => {
     expect(valueOf('rcd-30ma-2x')).toBe(150);
     expect(valueOf('rcd-30ma-5x')).toBe(40);
     expect(findPreset('rcd-30ma-1x')?.note).toMatch(/Type A/);
-    expect(findPreset('rcd-30ma-half')?.comparison).toBe('min');
+    expect(findPreset('rcd-30ma-half')).toMatchObject({ comparison: 'no-trip', testDurationMs: 300 });
   });
 
   // IEC 60364-6 Table 6.1 / BS 7671 Table 64: SELV/PELV 0.5 MΩ at 250 V DC; ≤ 500 V 1 MΩ at 500 V DC; > 500 V 1 MΩ at 1000 V DC.
@@ -76,5 +77,26 @@ describe('published acceptance limits', () => {
     expect(evaluateAgainstPreset(findPreset('insulation-equipment-class-ii')!, 1.5).pass).toBe(false);
     expect(evaluateAgainstPreset(findPreset('gfci-class-a-trip-current')!, 5.2).pass).toBe(true);
     expect(evaluateAgainstPreset(findPreset('gfci-class-a-trip-current')!, 7).pass).toBe(false);
+  });
+
+  // IEC 61008-1 / 61009-1 (from memory): no trip at 0.5×IΔn; test applied for at least the 300 ms 1×IΔn break time (common practice, from memory).
+  it('passes the 0.5×IΔn test when the RCD did not trip or held for the whole test, and fails an earlier trip', () => {
+    const half = findPreset('rcd-30ma-half')!;
+    expect(evaluateAgainstPreset(half, 'did-not-trip')).toMatchObject({ pass: true, measured: 'did-not-trip', rule: 'no trip within 300 ms' });
+    expect(evaluateAgainstPreset(half, 300).pass).toBe(true);
+    expect(evaluateAgainstPreset(half, 2000).pass).toBe(true);
+    expect(evaluateAgainstPreset(half, 120).pass).toBe(false);
+    expect(evaluateAgainstPreset(half, 0).pass).toBe(false);
+  });
+
+  it('fails a break-time test when the RCD did not trip at all', () => {
+    expect(evaluateAgainstPreset(findPreset('rcd-30ma-1x')!, 'did-not-trip').pass).toBe(false);
+    expect(evaluateAgainstPreset(findPreset('rcd-30ma-5x')!, 'did-not-trip').pass).toBe(false);
+  });
+
+  it('refuses "did not trip" for a reading that is not a trip time, naming the field', () => {
+    const attempt = () => evaluateAgainstPreset(findPreset('insulation-equipment-class-i')!, 'did-not-trip');
+    expect(attempt).toThrow(EngineError);
+    expect(attempt).toThrow(expect.objectContaining({ field: 'measured' }));
   });
 });

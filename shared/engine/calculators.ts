@@ -6,7 +6,8 @@ import { earthContinuityPreset } from './earth-continuity';
 import { EngineError } from './errors';
 import { inductivePhaseControl } from './inductive';
 import { firingAngleForPower } from './inverse';
-import { evaluateAgainstPreset, findPreset } from './limits';
+import { findPreset } from './limits';
+import { evaluateAgainstPreset } from './limit-verdict';
 import { coldFilamentInrushA, describeLoadModel } from './load-model';
 import { degToRad } from './numeric';
 import { checkCapacitorClass, checkDeviceVoltage, suggestFuse, triggerResistorDissipation } from './ratings';
@@ -14,7 +15,7 @@ import { loadResistance, resistivePhaseControl } from './resistive';
 import { simulateTrigger } from './simulate';
 import { thermalCheck } from './thermal';
 import { estimateFiring, estimateFiringRange } from './trigger';
-import { idealWaveform } from './waveform';
+import { idealWaveform, simulatedWaveform } from './waveform';
 
 const supplyOf = (s: { voltageRms: number; frequencyHz: number }) => ({ supplyVrms: s.voltageRms, frequencyHz: s.frequencyHz });
 
@@ -25,7 +26,7 @@ export function calculateResistive(input: ResistiveInput) {
   return {
     loadResistanceOhms: r,
     ...resistivePhaseControl({ ...supply, resistanceOhms: r, alphaRad }),
-    waveform: idealWaveform({ ...supply, alphaRad, cycles: 2, points: input.waveformPoints }),
+    waveform: input.waveform ? idealWaveform({ ...supply, alphaRad, cycles: input.waveformCycles, points: input.samples }) : null,
     note: 'Ideal devices: on-state voltage drops and the bridge diodes are neglected.',
   };
 }
@@ -46,35 +47,44 @@ export function calculateInductive(input: InductiveInput) {
   return {
     loadModel,
     figures: inductivePhaseControl(params),
-    waveform: idealWaveform({ ...params, cycles: 2, points: input.waveformPoints }),
+    waveform: input.waveform ? idealWaveform({ ...params, cycles: input.waveformCycles, points: input.samples }) : null,
     inrush: input.loadKind === 'lamp-filament' ? { estimate: true, ...coldFilamentInrushA(supply.supplyVrms, input.resistanceOhms) } : null,
   };
 }
 
 export function calculateTrigger(input: TriggerInput) {
+  const supply = supplyOf(input.supply);
   const network = {
-    ...supplyOf(input.supply),
+    ...supply,
     fixedResistanceOhms: input.fixedResistanceOhms,
     potentiometerOhms: input.potentiometerOhms,
     capacitanceF: input.capacitanceF,
     breakoverV: input.diac.breakoverV,
     loadOhms: input.loadOhms,
   };
-  const simulation = simulateTrigger({
+  const recordFromCycle = Math.max(0, input.simulation.cycles - input.waveformCycles);
+  const { samples, ...simulation } = simulateTrigger({
     ...network,
     ...input.device,
     ...input.simulation,
+    maxPoints: input.samples,
+    recordFromCycle,
     setting: input.setting,
     breakbackV: input.diac.breakbackV,
     gateCircuitOhms: input.gateCircuitOhms,
   });
+  const expected = simulation.steadyStateFiringAngleDeg;
+  // Power into the load at the simulated angle (ideal switch); none when the trigger never fires.
+  const atAngle = resistivePhaseControl({ ...supply, resistanceOhms: input.loadOhms, alphaRad: degToRad(expected ?? 180) });
   return {
     /** The simulation is the authority for the expected firing angle. */
-    expectedFiringAngleDeg: simulation.steadyStateFiringAngleDeg,
-    firesInSteadyState: simulation.steadyStateFiringAngleDeg !== null,
+    expectedFiringAngleDeg: expected,
+    firesInSteadyState: expected !== null,
+    load: { outputVrms: atAngle.outputVrms, outputPowerW: atAngle.outputPowerW, powerFraction: atAngle.powerFraction, fullPowerW: atAngle.fullPowerW },
     estimate: estimateFiring(network, input.setting),
     range: estimateFiringRange(network),
     simulation,
+    waveform: input.waveform ? simulatedWaveform(samples, simulation.halfCycles, { ...supply, fromCycle: recordFromCycle }) : null,
     note: 'The first-order estimate ignores the capacitor reset during conduction and usually fires later than the circuit does.',
   };
 }

@@ -1,4 +1,5 @@
 // Protective ratings: fuse suggestion, device voltage rating, capacitor safety class, trigger resistor dissipation.
+import { EngineError } from './errors';
 
 /** Renard R10 (ISO 3): the series miniature fuse ratings (IEC 60127) are drawn from, e.g. 1.6 A, 3.15 A, 6.3 A. */
 export const FUSE_SERIES = {
@@ -34,6 +35,11 @@ export function nextPreferredValue(required: number, series: FuseSeries = 'R10')
 
 export function suggestFuse(loadCurrentA: number, margin = DEFAULT_FUSE_MARGIN, series: FuseSeries = 'R10') {
   const requiredA = loadCurrentA * margin;
+  const entry = FUSE_SERIES[series];
+  if ('values' in entry && requiredA > entry.values[entry.values.length - 1]) {
+    const largest = entry.values[entry.values.length - 1];
+    throw new EngineError('loadCurrentA', `${requiredA.toFixed(1)} A (current × margin) is above the largest ${series} rating listed, ${largest} A`);
+  }
   return { requiredA, ratingA: nextPreferredValue(requiredA, series), margin, series: FUSE_SERIES[series].name };
 }
 

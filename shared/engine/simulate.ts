@@ -15,6 +15,8 @@ export interface SimulationParams extends TriggerNetwork {
   cycles: number;
   stepsPerCycle: number;
   maxPoints: number;
+  /** Samples are kept from this whole cycle on (0: from the start), so a plot can show the settled cycles. */
+  recordFromCycle?: number;
 }
 
 export interface HalfCycleFiring {
@@ -38,7 +40,8 @@ export function simulateTrigger(p: SimulationParams): SimulationResult {
   const c = p.capacitanceF;
   const steps = Math.round(p.cycles * p.stepsPerCycle);
   const dt = 1 / (p.frequencyHz * p.stepsPerCycle);
-  const every = Math.max(1, Math.ceil(steps / p.maxPoints));
+  const firstRecorded = Math.round(Math.min(p.recordFromCycle ?? 0, p.cycles) * p.stepsPerCycle);
+  const every = Math.max(1, Math.ceil((steps - firstRecorded + 1) / p.maxPoints));
   const diacOnV = p.breakoverV - p.breakbackV; // the diac falls back by breakback, not to zero
   const samples = { t: [] as number[], supply: [] as number[], capacitor: [] as number[], output: [] as number[] };
   const halfCycles: HalfCycleFiring[] = [];
@@ -88,7 +91,7 @@ export function simulateTrigger(p: SimulationParams): SimulationResult {
       }
     }
     if (!on) loadCurrent = (vs - vc) / (rNet + p.loadOhms); // only the network current flows
-    if (k % every === 0 && samples.t.length < p.maxPoints) {
+    if (k >= firstRecorded && (k - firstRecorded) % every === 0 && samples.t.length < p.maxPoints) {
       samples.t.push(t);
       samples.supply.push(vs);
       samples.capacitor.push(vc);

@@ -20,6 +20,9 @@ export interface ThermalResult {
   conductionLossW: number;
   /** Null when no heatsink value was given. */
   junctionC: number | null;
+  /** Case (mounting base) and heatsink temperatures: what a contact thermometer reads on the bench; null without a heatsink value. */
+  caseC: number | null;
+  sinkC: number | null;
   withinLimit: boolean | null;
   /** Largest heatsink-to-ambient resistance that keeps Tj ≤ Tj,max; null when none can (or no loss). */
   maxSinkAmbientKW: number | null;
@@ -33,16 +36,20 @@ export const conductionLoss = (vt0: number, rt: number, iav: number, irms: numbe
 export function thermalCheck(p: ThermalParams): ThermalResult {
   const loss = conductionLoss(p.thresholdVoltageV, p.slopeResistanceOhms, p.averageCurrentA, p.rmsCurrentA);
   const deviceChain = p.rthJunctionCaseKW + p.rthCaseSinkKW;
-  const junctionC = p.rthSinkAmbientKW === undefined ? null : p.ambientC + loss * (deviceChain + p.rthSinkAmbientKW);
+  const sa = p.rthSinkAmbientKW;
+  // Temperature at a point of the chain: ambient plus the loss through everything between it and the air.
+  const at = (above: number) => (sa === undefined ? null : p.ambientC + loss * (above + sa));
+  const temps = { junctionC: at(deviceChain), caseC: at(p.rthCaseSinkKW), sinkC: at(0) };
+  const { junctionC } = temps;
   const withinLimit = junctionC === null ? null : junctionC <= p.maxJunctionC;
   if (loss === 0) {
-    return { conductionLossW: 0, junctionC, withinLimit, maxSinkAmbientKW: null, heatsinkPossible: true, statement: 'No conduction loss: no heatsink is needed.' };
+    return { conductionLossW: 0, ...temps, withinLimit, maxSinkAmbientKW: null, heatsinkPossible: true, statement: 'No conduction loss: no heatsink is needed.' };
   }
   const rise = p.ambientC + loss * deviceChain;
   if (rise >= p.maxJunctionC) {
     return {
       conductionLossW: loss,
-      junctionC,
+      ...temps,
       withinLimit,
       maxSinkAmbientKW: null,
       heatsinkPossible: false,
@@ -52,7 +59,7 @@ export function thermalCheck(p: ThermalParams): ThermalResult {
   const maxSa = (p.maxJunctionC - p.ambientC) / loss - deviceChain;
   return {
     conductionLossW: loss,
-    junctionC,
+    ...temps,
     withinLimit,
     maxSinkAmbientKW: maxSa,
     heatsinkPossible: true,

@@ -1,6 +1,7 @@
 // Ideal phase-cut waveforms for plotting: supply and output voltage, with the firing points.
 import { extinctionAngle, loadAngle } from './inductive';
-import { radToDeg } from './numeric';
+import { degToRad, radToDeg } from './numeric';
+import type { HalfCycleFiring, SimulationResult } from './simulate';
 
 export interface IdealWaveformParams {
   supplyVrms: number;
@@ -13,12 +14,26 @@ export interface IdealWaveformParams {
   points: number;
 }
 
-export interface IdealWaveform {
+export interface FiringPoint {
+  t: number;
+  angleDeg: number;
+  supplyV: number;
+}
+
+/** What a plot needs: time from a supply zero crossing, supply and output voltage, the firing points. */
+export interface WaveformSamples {
   t: number[];
   supply: number[];
   output: number[];
-  firingPoints: { t: number; angleDeg: number; supplyV: number }[];
+  firingPoints: FiringPoint[];
+}
+
+export interface IdealWaveform extends WaveformSamples {
   extinctionAngleDeg: number;
+}
+
+export interface SimulatedWaveform extends WaveformSamples {
+  capacitor: number[];
 }
 
 export function idealWaveform(p: IdealWaveformParams): IdealWaveform {
@@ -48,4 +63,22 @@ export function idealWaveform(p: IdealWaveformParams): IdealWaveform {
     out.firingPoints.push({ t: theta / w, angleDeg: radToDeg(a), supplyV: vm * Math.sin(theta) });
   }
   return out;
+}
+
+/** The simulated samples from a whole cycle on, re-timed from that cycle's zero crossing, with each half-cycle's firing point. */
+export function simulatedWaveform(
+  samples: SimulationResult['samples'],
+  halfCycles: HalfCycleFiring[],
+  p: { supplyVrms: number; frequencyHz: number; fromCycle: number },
+): SimulatedWaveform {
+  const t0 = p.fromCycle / p.frequencyHz;
+  const w = 2 * Math.PI * p.frequencyHz;
+  const firingPoints: FiringPoint[] = [];
+  for (const h of halfCycles) {
+    const local = h.index - 2 * p.fromCycle;
+    if (local < 0 || h.firingAngleDeg === null) continue;
+    const theta = local * Math.PI + degToRad(h.firingAngleDeg);
+    firingPoints.push({ t: theta / w, angleDeg: h.firingAngleDeg, supplyV: Math.SQRT2 * p.supplyVrms * Math.sin(theta) });
+  }
+  return { t: samples.t.map((t) => t - t0), supply: samples.supply, output: samples.output, capacitor: samples.capacitor, firingPoints };
 }

@@ -15,9 +15,14 @@ export const resistiveLoadSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('rated'), ratedPowerW: z.number().positive().max(1e6), ratedVoltageV: volts }),
 ]);
 
-const waveformPoints = z.number().int().min(10).max(4000).default(400);
+/** Waveform samples only on request, and bounded: one or two supply cycles, at most 4000 points. */
+const waveformOptions = {
+  waveform: z.boolean().default(false),
+  samples: z.number().int().min(10).max(4000).default(400),
+  waveformCycles: z.number().int().min(1).max(2).default(2),
+};
 
-export const resistiveInputSchema = z.object({ supply: supplySchema, load: resistiveLoadSchema, alphaDeg: angleDeg, waveformPoints });
+export const resistiveInputSchema = z.object({ supply: supplySchema, load: resistiveLoadSchema, alphaDeg: angleDeg, ...waveformOptions });
 
 export const inverseInputSchema = z.object({
   supply: supplySchema,
@@ -37,7 +42,7 @@ export const inductiveInputSchema = z.object({
   inductanceH: z.number().min(0).max(100),
   alphaDeg: angleDeg,
   loadKind: loadKindSchema.default('resistive-inductive'),
-  waveformPoints,
+  ...waveformOptions,
 });
 
 export const triggerInputSchema = z
@@ -61,9 +66,9 @@ export const triggerInputSchema = z
       .object({
         cycles: z.number().int().min(1).max(50).default(6),
         stepsPerCycle: z.number().int().min(200).max(20000).default(4000),
-        maxPoints: z.number().int().min(10).max(20000).default(4000),
       })
       .prefault({}),
+    ...waveformOptions,
   })
   .refine((v) => v.fixedResistanceOhms + v.potentiometerOhms > 0, {
     path: ['fixedResistanceOhms'],
@@ -117,7 +122,12 @@ export const ratingsInputSchema = z.object({
     .optional(),
 });
 
-export const limitCheckInputSchema = z.object({ presetId: z.string().min(1).max(100), measured: z.number() });
+/** A reading in the preset's unit, or "did-not-trip" for an RCD or GFCI trip test. */
+export const limitMeasurementSchema = z.union([z.number().min(0).max(1e9), z.literal('did-not-trip')], {
+  error: 'Give a non-negative number in the preset\'s unit, or "did-not-trip"',
+});
+
+export const limitCheckInputSchema = z.object({ presetId: z.string().min(1).max(100), measured: limitMeasurementSchema });
 
 export const earthContinuityInputSchema = z.object({
   lengthM: z.number().positive().max(100),

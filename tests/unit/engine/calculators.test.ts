@@ -15,9 +15,17 @@ const roundTrips = (value: unknown) => expect(JSON.parse(JSON.stringify(value)))
 describe('calculator modes (validated input → JSON-serialisable result)', () => {
   it('resistive: Rashid 4th ed. Example 11.1 through the schema (84.85 V, PF 0.707)', () => {
     const r = calculateResistive(resistiveInputSchema.parse({ supply, load: { kind: 'resistance', ohms: 10 }, alphaDeg: 90 }));
-    expect(r.outputVrms).toBeCloseTo(84.85, 2);
-    expect(r.powerFactor).toBeCloseTo(0.707, 3);
-    expect(r.waveform.t).toHaveLength(400);
+    expect(r.outputVrms).toBeCloseTo(84.85, 2); // Rashid 4th ed. Ex. 11.1
+    expect(r.powerFactor).toBeCloseTo(0.707, 3); // Rashid 4th ed. Ex. 11.1
+    expect(r.waveform).toBeNull(); // samples only on request
+    roundTrips(r);
+  });
+
+  it('resistive: returns the waveform on request, bounded by samples and cycles', () => {
+    const r = calculateResistive(resistiveInputSchema.parse({ supply, load: { kind: 'resistance', ohms: 10 }, alphaDeg: 90, waveform: true, samples: 120, waveformCycles: 1 }));
+    expect(r.waveform?.t).toHaveLength(120);
+    expect(r.waveform?.t.at(-1)).toBeCloseTo(1 / 60, 12); // one 60 Hz cycle (definition)
+    expect(r.waveform?.firingPoints).toHaveLength(2);
     roundTrips(r);
   });
 
@@ -34,15 +42,24 @@ describe('calculator modes (validated input → JSON-serialisable result)', () =
     roundTrips(r);
   });
 
-  it('trigger: reports the simulated angle as the expectation and the estimate apart', () => {
-    const r = calculateTrigger(triggerInputSchema.parse({
+  it('trigger: reports the simulated angle as the expectation, the estimate apart, and the settled cycles on request', () => {
+    const input = triggerInputSchema.parse({
       supply: { voltageRms: 230, frequencyHz: 50 }, loadOhms: 529, fixedResistanceOhms: 3300, potentiometerOhms: 470e3, setting: 0.3, capacitanceF: 100e-9,
       diac: { breakoverV: 32, breakbackV: 6 }, device: { latchingCurrentA: 0.04, holdingCurrentA: 0.025, gateTriggerCurrentA: 0.025, gateTriggerVoltageV: 1 },
-      simulation: { cycles: 4, stepsPerCycle: 2000, maxPoints: 1000 },
-    }));
-    expect(r.expectedFiringAngleDeg).toBe(r.simulation.steadyStateFiringAngleDeg);
+      simulation: { cycles: 4, stepsPerCycle: 2000 }, waveform: true, samples: 500, waveformCycles: 2,
+    });
+    const r = calculateTrigger(input);
+    const alpha = r.expectedFiringAngleDeg as number;
+    expect(alpha).toBe(r.simulation.steadyStateFiringAngleDeg);
     expect(r.estimate.estimate).toBe(true);
-    expect(r.simulation.samples.t.length).toBeLessThanOrEqual(1000);
+    expect(r.waveform?.t.length).toBeLessThanOrEqual(500);
+    expect(r.waveform?.t[0]).toBeCloseTo(0, 12); // re-timed from the zero crossing two cycles before the end
+    expect(r.waveform?.t.at(-1)).toBeCloseTo(2 / 50, 3);
+    expect(r.waveform?.firingPoints).toHaveLength(4); // one per half-cycle of the two settled cycles
+    expect(r.waveform?.firingPoints[2].t).toBeCloseTo((360 + r.simulation.halfCycles[6].firingAngleDeg!) / 360 / 50, 12);
+    // Power at the simulated angle follows the closed form for the 529 Ω (100 W at 230 V) load.
+    expect(r.load.powerFraction).toBeCloseTo(1 - alpha / 180 + Math.sin((2 * alpha * Math.PI) / 180) / (2 * Math.PI), 12);
+    expect(calculateTrigger({ ...input, waveform: false }).waveform).toBeNull();
     roundTrips(r);
   });
 

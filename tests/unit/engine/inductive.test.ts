@@ -71,14 +71,14 @@ describe('R-L load', () => {
   });
 
   it('flags a universal motor as not modelled and gives no figures', () => {
-    const r = calculateInductive({ supply: { voltageRms: 230, frequencyHz: 50 }, resistanceOhms: 20, inductanceH: 0.1, alphaDeg: 90, loadKind: 'universal-motor', waveformPoints: 100 });
+    const r = calculateInductive({ supply: { voltageRms: 230, frequencyHz: 50 }, resistanceOhms: 20, inductanceH: 0.1, alphaDeg: 90, loadKind: 'universal-motor', waveform: false, samples: 100, waveformCycles: 2 });
     expect(r.loadModel).toMatchObject({ modelled: false, estimate: true });
     expect(r.loadModel.note).toMatch(/back-EMF/);
     expect(r.figures).toBeNull();
   });
 
   it('flags a cold lamp filament as an estimate with an inrush range from the 1/15 to 1/10 cold ratio (from memory)', () => {
-    const r = calculateInductive({ supply: { voltageRms: 230, frequencyHz: 50 }, resistanceOhms: 881.7, inductanceH: 0, alphaDeg: 90, loadKind: 'lamp-filament', waveformPoints: 100 });
+    const r = calculateInductive({ supply: { voltageRms: 230, frequencyHz: 50 }, resistanceOhms: 881.7, inductanceH: 0, alphaDeg: 90, loadKind: 'lamp-filament', waveform: false, samples: 100, waveformCycles: 2 });
     expect(r.loadModel).toMatchObject({ modelled: false, estimate: true });
     expect(r.inrush?.minA).toBeCloseTo((Math.SQRT2 * 230 * 10) / 881.7, 6);
     expect(r.inrush?.maxA).toBeCloseTo((Math.SQRT2 * 230 * 15) / 881.7, 6);

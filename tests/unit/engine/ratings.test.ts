@@ -15,6 +15,10 @@ describe('protective ratings', () => {
     expect(suggestFuse(11, 1.25, 'IEC60269').ratingA).toBe(16);
   });
 
+  it('names the load current when it needs more than the largest listed IEC 60269 rating (125 A, from memory)', () => {
+    expect(() => suggestFuse(110, 1.25, 'IEC60269')).toThrow(expect.objectContaining({ name: 'EngineError', field: 'loadCurrentA' }));
+  });
+
   it('checks V_DRM against twice the supply peak (common practice): 230 V needs 650 V, so 600 V fails, 800 V passes', () => {
     expect(checkDeviceVoltage(230, 600).requiredV).toBeCloseTo(2 * Math.SQRT2 * 230, 9);
     expect(checkDeviceVoltage(230, 600).ok).toBe(false);

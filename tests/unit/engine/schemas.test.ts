@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import {
-  inductiveInputSchema, ratingsInputSchema, resistiveInputSchema, thermalInputSchema, triggerInputSchema,
+  inductiveInputSchema, limitCheckInputSchema, ratingsInputSchema, resistiveInputSchema, thermalInputSchema, triggerInputSchema,
 } from '../../../shared/schemas/engine';
 
 const supply = { voltageRms: 230, frequencyHz: 50 };
@@ -19,7 +19,7 @@ describe('engine input schemas', () => {
   it('accepts a valid resistive input and applies defaults', () => {
     const r = resistiveInputSchema.safeParse(resistive);
     expect(r.success).toBe(true);
-    expect(r.data?.waveformPoints).toBe(400);
+    expect(r.data).toMatchObject({ waveform: false, samples: 400, waveformCycles: 2 });
   });
 
   it('refuses NaN (zod 4 z.number() refuses it) naming the field', () => {
@@ -52,10 +52,24 @@ describe('engine input schemas', () => {
   it('accepts a trigger input with simulation defaults, and refuses breakback above breakover or a setting of 1.5', () => {
     const ok = triggerInputSchema.safeParse(trigger);
     expect(ok.success).toBe(true);
-    expect(ok.data?.simulation).toEqual({ cycles: 6, stepsPerCycle: 4000, maxPoints: 4000 });
+    expect(ok.data?.simulation).toEqual({ cycles: 6, stepsPerCycle: 4000 });
     expect(paths(triggerInputSchema.safeParse({ ...trigger, diac: { breakoverV: 32, breakbackV: 40 } }))).toEqual(['diac.breakbackV']);
     expect(paths(triggerInputSchema.safeParse({ ...trigger, setting: 1.5 }))).toEqual(['setting']);
     expect(paths(triggerInputSchema.safeParse({ ...trigger, capacitanceF: 0 }))).toEqual(['capacitanceF']);
+  });
+
+  it('bounds the waveform request: at most 4000 samples over one or two cycles, and waveform must be a boolean', () => {
+    expect(paths(resistiveInputSchema.safeParse({ ...resistive, waveform: true, samples: 5000 }))).toEqual(['samples']);
+    expect(paths(resistiveInputSchema.safeParse({ ...resistive, waveform: true, waveformCycles: 3 }))).toEqual(['waveformCycles']);
+    expect(paths(resistiveInputSchema.safeParse({ ...resistive, waveform: 'yes' }))).toEqual(['waveform']);
+    expect(paths(triggerInputSchema.safeParse({ ...trigger, samples: 2.5 }))).toEqual(['samples']);
+  });
+
+  it('takes a number or "did-not-trip" as a limit reading, and refuses a negative one or other words', () => {
+    expect(limitCheckInputSchema.safeParse({ presetId: 'rcd-30ma-half', measured: 'did-not-trip' }).success).toBe(true);
+    expect(limitCheckInputSchema.safeParse({ presetId: 'rcd-30ma-1x', measured: 24 }).success).toBe(true);
+    expect(paths(limitCheckInputSchema.safeParse({ presetId: 'rcd-30ma-1x', measured: -3 }))).toEqual(['measured']);
+    expect(paths(limitCheckInputSchema.safeParse({ presetId: 'rcd-30ma-1x', measured: 'tripped' }))).toEqual(['measured']);
   });
 
   it('refuses an RMS current below the average current in the thermal input', () => {

@@ -10,6 +10,8 @@ describe('thermal check', () => {
     const r = thermalCheck({ ...chain, thresholdVoltageV: 1, slopeResistanceOhms: 0, averageCurrentA: 5, rmsCurrentA: 5, rthSinkAmbientKW: 8 });
     expect(r.conductionLossW).toBeCloseTo(5, 12);
     expect(r.junctionC).toBeCloseTo(85, 9);
+    expect(r.caseC).toBeCloseTo(25 + 5 * (1 + 8), 9); // arithmetic: 70 °C
+    expect(r.sinkC).toBeCloseTo(25 + 5 * 8, 9); // arithmetic: 65 °C
     expect(r.withinLimit).toBe(true);
   });
 
@@ -18,6 +20,20 @@ describe('thermal check', () => {
     const r = thermalCheck({ ...chain, rthJunctionCaseKW: 5, thresholdVoltageV: 0, slopeResistanceOhms: 0.14, averageCurrentA: 5, rmsCurrentA: 5, rthSinkAmbientKW: 10 });
     expect(r.conductionLossW).toBeCloseTo(3.5, 12);
     expect(r.junctionC).toBeCloseTo(81, 9);
+  });
+
+  // Sedra & Smith, Microelectronic Circuits, 5th ed., Section 14.8 (power transistors), the worked example of a transistor
+  // on a heat sink (book and values from memory; example number not recalled): T_Jmax = 175 °C, P_D0 = 50 W at T_C0 = 25 °C,
+  // so θ_JC = 3 °C/W; θ_CS = 0.6 °C/W, θ_SA = 4 °C/W, T_A = 25 °C → P_Dmax = 150 / 7.6 = 19.7 W, case ≈ 116 °C.
+  it('reproduces the Sedra & Smith 5th ed. heat-sink example: 19.7 W through 3 + 0.6 + 4 °C/W reaches 175 °C (from memory)', () => {
+    const pMax = (175 - 25) / (3 + 0.6 + 4);
+    expect(pMax).toBeCloseTo(19.7, 1); // Sedra & Smith: P_Dmax = 19.7 W (from memory)
+    const r = thermalCheck({ thresholdVoltageV: 1, slopeResistanceOhms: 0, averageCurrentA: pMax, rmsCurrentA: pMax, rthJunctionCaseKW: 3, rthCaseSinkKW: 0.6, rthSinkAmbientKW: 4, ambientC: 25, maxJunctionC: 175 });
+    expect(r.junctionC).toBeCloseTo(175, 9); // Sedra & Smith: T_J reaches T_Jmax = 175 °C at P_Dmax
+    expect(r.caseC).toBeCloseTo(116, 0); // Sedra & Smith: T_C ≈ 116 °C (from memory)
+    expect(r.withinLimit).toBe(true);
+    const sized = thermalCheck({ thresholdVoltageV: 1, slopeResistanceOhms: 0, averageCurrentA: pMax, rmsCurrentA: pMax, rthJunctionCaseKW: 3, rthCaseSinkKW: 0.6, ambientC: 25, maxJunctionC: 175 });
+    expect(sized.maxSinkAmbientKW).toBeCloseTo(4, 9); // the same example read backwards: θ_SA = 4 °C/W
   });
 
   // Hand arithmetic: a 1 kW, 230 V heater at full conduction through a triac with V_T0 = 1.0 V, r_T = 30 mΩ.

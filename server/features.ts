@@ -9,13 +9,6 @@ import { makeSitesService } from './sites/sites.service.js';
 import { sitesRoutes } from './sites/sites.routes.js';
 import { mailRoutes } from './mail/mail.routes.js';
 import { makeSignatures } from './signatures/signatures.service.js';
-import { makeUsability } from './benches/usability.service.js';
-import { makeBenchesService } from './benches/benches.service.js';
-import { benchesRoutes } from './benches/benches.routes.js';
-import { makeInstrumentsService } from './benches/instruments.service.js';
-import { instrumentsRoutes } from './benches/instruments.routes.js';
-import { makeEvidenceService } from './evidence/evidence.service.js';
-import { evidenceRoutes } from './evidence/evidence.routes.js';
 import { makeEngineService } from './engine/engine.service.js';
 import { engineRoutes } from './engine/engine.routes.js';
 

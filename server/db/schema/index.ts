@@ -4,3 +4,4 @@ export * from './benches.js';
 export * from './evidence.js';
 export * from './procedures.js';
 export * from './acknowledgements.js';
+export * from './authorisations.js';

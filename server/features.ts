@@ -9,6 +9,13 @@ import { makeSitesService } from './sites/sites.service.js';
 import { sitesRoutes } from './sites/sites.routes.js';
 import { mailRoutes } from './mail/mail.routes.js';
 import { makeSignatures } from './signatures/signatures.service.js';
+import { makeUsability } from './benches/usability.service.js';
+import { makeBenchesService } from './benches/benches.service.js';
+import { benchesRoutes } from './benches/benches.routes.js';
+import { makeInstrumentsService } from './benches/instruments.service.js';
+import { instrumentsRoutes } from './benches/instruments.routes.js';
+import { makeEvidenceService } from './evidence/evidence.service.js';
+import { evidenceRoutes } from './evidence/evidence.routes.js';
 import { makeEngineService } from './engine/engine.service.js';
 import { engineRoutes } from './engine/engine.routes.js';
 
@@ -18,7 +25,10 @@ export function buildServices(deps: Deps) {
   const people = makePeopleService(deps, auth);
   const sites = makeSitesService(deps);
   const signatures = makeSignatures(deps, auth);
-  return { auth, people, sites, signatures, engine: makeEngineService() };
+  const usability = makeUsability(deps);
+  const equipment = { usability, benches: makeBenchesService(deps, signatures, usability), instruments: makeInstrumentsService(deps, usability) };
+  const evidence = makeEvidenceService(deps);
+  return { auth, people, sites, signatures, engine: makeEngineService(), ...equipment, evidence };
 }
 export type Services = ReturnType<typeof buildServices>;
 
@@ -30,6 +40,9 @@ export function buildRouteTable(deps: Deps, s: Services): RouteDef[] {
     ...peopleRoutes(s.people),
     ...sitesRoutes(s.sites),
     ...mailRoutes(deps),
+    ...benchesRoutes(s.benches),
+    ...instrumentsRoutes(s.instruments),
+    ...evidenceRoutes(s.evidence, deps.config.uploadMaxBytes),
     ...engineRoutes(s.engine),
   ];
 }

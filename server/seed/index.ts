@@ -4,6 +4,7 @@ import type { Clock } from '../clock.js';
 import { users } from '../db/schema/index.js';
 import { makeAudit } from '../audit/audit.service.js';
 import { seedPeople } from './seed-people.js';
+import { seedBenches } from './seed-benches.js';
 
 /**
  * Seeds the demo scenario into an empty database, in one transaction. Later features add their own
@@ -23,4 +24,4 @@ export async function seedDemoIfEmpty(db: Database, clock: Clock): Promise<boole
 export type SeedContext = Awaited<ReturnType<typeof seedPeople>>;
 export type SeedStep = (tx: Parameters<Parameters<Database['transaction']>[0]>[0], clock: Clock, audit: ReturnType<typeof makeAudit>, ctx: SeedContext) => Promise<void>;
 
-const SEED_STEPS: SeedStep[] = [];
+const SEED_STEPS: SeedStep[] = [seedBenches];

@@ -22,7 +22,7 @@ export const benchFields = z.object({
   active: z.boolean(),
 });
 
-type Setup = Pick<z.infer<typeof benchFields>, 'isolatingTransformer' | 'isolatingTransformerVa' | 'rcdType' | 'rcdRatedResidualMa'>;
+interface Setup { isolatingTransformer: boolean; isolatingTransformerVa: number | null; rcdType: string | null; rcdRatedResidualMa: number | null }
 
 /** The pairs that go together: a transformer and its rating, an RCD and its rated residual current. */
 export function benchSetupProblems(b: Setup): Record<string, string> {

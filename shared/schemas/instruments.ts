@@ -35,7 +35,7 @@ export const instrumentFields = z.object({
   active: z.boolean(),
 });
 
-type Rating = Pick<z.infer<typeof instrumentFields>, 'measurementCategory' | 'voltageRating'>;
+interface Rating { measurementCategory: string | null; voltageRating: number | null }
 
 /** A category means nothing without its voltage, and the other way round. */
 export function instrumentRatingProblems(i: Rating): Record<string, string> {

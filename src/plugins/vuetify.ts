@@ -41,7 +41,7 @@ export function createAppVuetify() {
       VSelect: { variant: 'outlined', density: 'comfortable' },
       VAutocomplete: { variant: 'outlined', density: 'comfortable' },
       VTextarea: { variant: 'outlined', density: 'comfortable' },
-      VCard: { rounded: 'lg', variant: 'outlined' },
+      VCard: { rounded: 'lg', variant: 'flat', border: true },
       VBtn: { rounded: 'md' },
     },
   });

@@ -13,6 +13,12 @@ import { createAppRouter } from '@/router';
 import { ability } from '@/plugins/ability';
 import { useSessionStore } from '@/stores/session';
 
+// happy-dom has no visualViewport; Vuetify's overlays (dialogs, menus) read it to place themselves.
+if (!('visualViewport' in globalThis)) {
+  const viewport = Object.assign(new EventTarget(), { width: 1280, height: 800, offsetLeft: 0, offsetTop: 0, pageLeft: 0, pageTop: 0, scale: 1 });
+  Object.defineProperty(globalThis, 'visualViewport', { value: viewport, configurable: true });
+}
+
 export const LEIPZIG = { id: '00000000-0000-4000-8000-000000000001', code: 'LEJ-W1', name: 'Leipzig bench workshop', timeZone: 'Europe/Berlin', personTerm: 'skilled person' as const };
 export const CLEVELAND = { id: '00000000-0000-4000-8000-000000000002', code: 'CLE-L2', name: 'Cleveland test lab', timeZone: 'America/New_York', personTerm: 'qualified person' as const };
 

@@ -27,6 +27,6 @@ export function useSites() {
     return pending;
   }
   const byId = computed(() => new Map(sites.value.map((s) => [s.id, s])));
-  const siteName = (id: string) => byId.value.get(id)?.name ?? 'unknown site';
+  const siteName = (id: string) => byId.value.get(id)?.name ?? (loading.value ? '…' : 'a site no longer listed');
   return { sites, loading, error, load, siteName };
 }

@@ -7,7 +7,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ensureDatabase, findPostgresBin, initCluster, removeCluster, startCluster, stopCluster } from './lib/cluster.js';
 import { freePort } from './lib/ports.js';
-import { buildClientIfStale } from './lib/build.js';
+import { buildClientInto } from './lib/build.js';
 import { runMigrations } from '../server/db/migrate.js';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -31,6 +31,7 @@ async function main() {
   const parent = mkdtempSync(path.join(os.tmpdir(), 'breakover-test-'));
   chmodSync(parent, 0o755);
   const dataDir = path.join(parent, 'pg');
+  const staticDir = path.join(parent, 'dist');
   const port = await freePort();
   initCluster(bin, dataDir);
   await startCluster(bin, dataDir, port);
@@ -42,12 +43,14 @@ async function main() {
     log(`test cluster on 127.0.0.1:${port}, template database migrated`);
     if (wantsBrowser) {
       ensureChromium();
-      if (process.env.SKIP_BUILD !== '1') buildClientIfStale(root, log);
+      log('building the client for the browser tests…');
+      buildClientInto(root, staticDir);
     }
     code = await runVitest(args, {
       TEST_PG_ADMIN_URL: admin,
       TEST_PG_TEMPLATE: 'bo_template',
       TEST_CHROMIUM: CHROMIUM,
+      TEST_STATIC_DIR: staticDir,
       BCRYPT_COST: '4',
     });
   } finally {

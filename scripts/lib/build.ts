@@ -18,3 +18,9 @@ export function buildClientIfStale(root: string, log: (s: string) => void): void
   const r = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
   if (r.status !== 0) throw new Error('vite build failed; see the messages above');
 }
+
+/** A build of its own for one test run, so parallel runs never serve each other's half-written dist/. */
+export function buildClientInto(root: string, outDir: string): void {
+  const r = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn', '--outDir', outDir, '--emptyOutDir'], { cwd: root, stdio: 'inherit' });
+  if (r.status !== 0) throw new Error('vite build failed; see the messages above');
+}

@@ -1,6 +1,4 @@
-import { mkdtempSync, rmSync } from 'node:fs';
 import type { Server } from 'node:http';
-import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll } from 'vitest';
@@ -20,20 +18,19 @@ const CHROMIUM_FLAGS = [
 export async function startBrowserApp(opts: TestAppOptions = {}) {
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
-  const t = await makeTestApp({ ...opts, env: { PUBLIC_URL: baseUrl, STATIC_DIR: path.resolve('dist'), ...opts.env } });
+  const t = await makeTestApp({ ...opts, env: { PUBLIC_URL: baseUrl, STATIC_DIR: process.env.TEST_STATIC_DIR ?? path.resolve('dist'), ...opts.env } });
   const server: Server = await new Promise((resolve) => {
     const s = t.app.listen(port, '127.0.0.1', () => resolve(s));
   });
-  const profile = mkdtempSync(path.join(os.tmpdir(), 'breakover-chromium-'));
   const browser: Browser = await chromium.launch({
     executablePath: process.env.TEST_CHROMIUM ?? '/usr/bin/chromium',
     headless: true,
-    args: [...CHROMIUM_FLAGS, `--user-data-dir=${profile}`],
+    // playwright-core gives every launch a fresh, empty profile folder of its own.
+    args: CHROMIUM_FLAGS,
   });
   afterAll(async () => {
     await browser.close();
     await new Promise((r) => server.close(r));
-    rmSync(profile, { recursive: true, force: true });
   });
 
   async function newPage(): Promise<Page> {

@@ -1,0 +1,35 @@
+// What a checklist measurement can be compared against when the engine computes the expected value
+// from a practical's bench set-up (supply, load, trigger network). The practical supplies the figures.
+import type { ResistiveResult } from '../engine/resistive.js';
+
+export const COMPUTED_QUANTITY_IDS = [
+  'firing-angle', 'conduction-angle', 'delay-time', 'output-rms-voltage', 'load-rms-current', 'load-power',
+] as const;
+export type ComputedQuantity = (typeof COMPUTED_QUANTITY_IDS)[number];
+
+export const COMPUTED_QUANTITIES: Record<ComputedQuantity, { label: string; unit: string; note: string }> = {
+  'firing-angle': { label: 'Firing angle α', unit: '°', note: 'From the time-domain simulation of the RC–diac trigger (the authority; the estimate is not used).' },
+  'conduction-angle': { label: 'Conduction angle', unit: '°', note: '180° − α for a resistive load.' },
+  'delay-time': { label: 'Delay after the zero crossing', unit: 'ms', note: 'α over the angular frequency of the supply.' },
+  'output-rms-voltage': { label: 'Output RMS voltage', unit: 'V', note: 'V·√(1 − α/π + sin 2α / 2π), resistive load.' },
+  'load-rms-current': { label: 'RMS load current', unit: 'A', note: 'Output RMS voltage over the load resistance.' },
+  'load-power': { label: 'Load power', unit: 'W', note: 'Output RMS voltage squared over the load resistance.' },
+};
+
+/** Picks one quantity out of the engine's figures for a resistive load fired at the expected angle. */
+export function readQuantity(quantity: ComputedQuantity, figures: ResistiveResult): number {
+  switch (quantity) {
+    case 'firing-angle':
+      return figures.alphaDeg;
+    case 'conduction-angle':
+      return figures.conductionAngleDeg;
+    case 'delay-time':
+      return figures.delayTimeS * 1000;
+    case 'output-rms-voltage':
+      return figures.outputVrms;
+    case 'load-rms-current':
+      return figures.loadCurrentRmsA;
+    case 'load-power':
+      return figures.outputPowerW;
+  }
+}

@@ -9,6 +9,7 @@ import { makeSitesService } from './sites/sites.service.js';
 import { sitesRoutes } from './sites/sites.routes.js';
 import { mailRoutes } from './mail/mail.routes.js';
 import { makeSignatures } from './signatures/signatures.service.js';
+import { makeProcedureServices, procedureRoutes } from './procedures/procedures.feature.js';
 import { makeUsability } from './benches/usability.service.js';
 import { makeBenchesService } from './benches/benches.service.js';
 import { benchesRoutes } from './benches/benches.routes.js';
@@ -28,7 +29,8 @@ export function buildServices(deps: Deps) {
   const usability = makeUsability(deps);
   const equipment = { usability, benches: makeBenchesService(deps, signatures, usability), instruments: makeInstrumentsService(deps, usability) };
   const evidence = makeEvidenceService(deps);
-  return { auth, people, sites, signatures, engine: makeEngineService(), ...equipment, evidence };
+  const procedures = makeProcedureServices(deps, signatures);
+  return { auth, people, sites, signatures, engine: makeEngineService(), ...equipment, evidence, procedures };
 }
 export type Services = ReturnType<typeof buildServices>;
 
@@ -44,5 +46,6 @@ export function buildRouteTable(deps: Deps, s: Services): RouteDef[] {
     ...instrumentsRoutes(s.instruments),
     ...evidenceRoutes(s.evidence, deps.config.uploadMaxBytes),
     ...engineRoutes(s.engine),
+    ...procedureRoutes(s.procedures),
   ];
 }

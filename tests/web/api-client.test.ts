@@ -26,7 +26,7 @@ describe('the HTTP client', () => {
   });
 
   it('then writes go same-origin with cookies and a JSON body, and empty query values are left out', async () => {
-    const fetchMock = vi.fn(async () => new Response(null, { status: 204 }));
+    const fetchMock = vi.fn(async (_url: string, _init?: RequestInit) => new Response(null, { status: 204 }));
     vi.stubGlobal('fetch', fetchMock);
     await api.patch('/people/x', { name: 'N' });
     await api.get('/people', { page: 1, q: '', role: undefined });

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import { dictionary } from '@zxcvbn-ts/language-common';
-import { PASSWORD_MIN, PASSWORD_MAX } from '../../shared/schemas/auth.js';
+import { PASSWORD_MIN, PASSWORD_MAX } from '../../shared/password-rules.js';
 
 // Cost 12 in service; the test run lowers it through BCRYPT_COST to keep the suite quick.
 const COST = Math.max(4, Number(process.env.BCRYPT_COST ?? 12));

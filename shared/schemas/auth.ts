@@ -1,8 +1,9 @@
 import { z } from 'zod';
 import { ROLES, PERSON_TERMS } from '../roles.js';
 
-export const PASSWORD_MIN = 15;
-export const PASSWORD_MAX = 128;
+import { PASSWORD_MIN, PASSWORD_MAX } from '../password-rules.js';
+
+export { PASSWORD_MIN, PASSWORD_MAX };
 
 export const email = z.string().trim().toLowerCase().max(254, 'e-mail is too long').pipe(z.email({ message: 'enter a valid e-mail address' }));
 

@@ -1,4 +1,4 @@
-import { PASSWORD_MAX, PASSWORD_MIN } from '@shared/schemas/auth';
+import { PASSWORD_MAX, PASSWORD_MIN } from '@shared/password-rules';
 
 /** The password policy as the server applies it (NIST SP 800-63B): length only, plus a common-password check there. */
 export function usePasswordRules() {

@@ -17,7 +17,8 @@ export interface LimitVerdict {
 
 const isTime = (unit: LimitPreset['unit']) => unit === 'ms' || unit === 's';
 
-function ruleOf(preset: LimitPreset): string {
+/** The rule in plain words, as a checklist or the calculator shows it. */
+export function limitRule(preset: LimitPreset): string {
   switch (preset.comparison) {
     case 'max':
       return `≤ ${preset.value} ${preset.unit}`;
@@ -51,5 +52,5 @@ export function evaluateAgainstPreset(preset: LimitPreset, measured: LimitMeasur
       pass = x >= preset.testDurationMs;
       break;
   }
-  return { presetId: preset.id, measured, unit: preset.unit, pass, rule: ruleOf(preset), source: preset.source };
+  return { presetId: preset.id, measured, unit: preset.unit, pass, rule: limitRule(preset), source: preset.source };
 }

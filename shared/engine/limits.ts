@@ -121,4 +121,4 @@ export function gfciMaxTripTimeS(currentMa: number): number | null {
 }
 
 // Kept reachable from here: checklist judging imports it from this module.
-export { evaluateAgainstPreset, type LimitMeasurement, type LimitVerdict } from './limit-verdict';
+export { evaluateAgainstPreset, limitRule, type LimitMeasurement, type LimitVerdict } from './limit-verdict';

@@ -1,4 +1,5 @@
 import { mdiAccountCircleOutline, mdiAccountGroupOutline, mdiEmailFastOutline, mdiHomeOutline } from '@mdi/js';
+import { mdiSineWave } from '@mdi/js';
 import type { Action, SubjectName } from '@shared/abilities';
 
 export interface NavItem {
@@ -19,5 +20,6 @@ export const navItems: NavItem[] = [
   { title: 'Home', description: 'Your starting page.', icon: mdiHomeOutline, to: 'home', hideOnHome: true },
   { title: 'People', description: 'Invite people, give them roles and sites, and switch accounts off with a reason.', icon: mdiAccountGroupOutline, to: 'people', can: ['invite', 'User'] },
   { title: 'Outgoing mail', description: 'Every message the portal has sent, with its full text.', icon: mdiEmailFastOutline, to: 'outbox', can: ['read', 'MailLog'] },
+  { title: 'Bench calculator', description: 'Firing angle, power, waveforms and device temperature for a phase-control circuit; published test limits.', icon: mdiSineWave, to: 'calculator' },
   { title: 'Your account', description: 'Your details, roles and sites, and your password.', icon: mdiAccountCircleOutline, to: 'profile' },
 ];

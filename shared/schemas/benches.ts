@@ -70,6 +70,7 @@ export const preUseCheck = z.object({
   passed: z.boolean(),
   notes: z.string().nullable(),
   checklistResponseId: z.string().nullable(),
+  signatures: z.array(z.object({ id: z.string(), signerId: z.string(), printedName: z.string(), meaning: z.string(), signedAt: z.string() })),
 });
 
 export const benchRow = benchFields.extend({

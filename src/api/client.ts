@@ -50,14 +50,16 @@ async function errorFrom(res: Response): Promise<ApiError> {
 
 export async function request<T>(method: string, path: string, opts: RequestOptions = {}): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (opts.body !== undefined) headers['Content-Type'] = 'application/json';
+  // A multipart form (an upload) sets its own Content-Type with the boundary.
+  const form = opts.body instanceof FormData;
+  if (opts.body !== undefined && !form) headers['Content-Type'] = 'application/json';
   let res: Response;
   try {
     res = await fetch(urlFor(path, opts.query), {
       method,
       headers,
       credentials: 'same-origin',
-      body: opts.body === undefined ? undefined : JSON.stringify(opts.body),
+      body: opts.body === undefined ? undefined : form ? (opts.body as FormData) : JSON.stringify(opts.body),
     });
   } catch {
     throw new ApiError(0, 'network', 'The server could not be reached. Check the connection and try again.');
@@ -76,6 +78,7 @@ export async function request<T>(method: string, path: string, opts: RequestOpti
 export const api = {
   get: <T>(path: string, query?: Query, opts?: RequestOptions) => request<T>('GET', path, { ...opts, query }),
   post: <T>(path: string, body?: unknown) => request<T>('POST', path, { body: body ?? {} }),
+  postForm: <T>(path: string, form: FormData) => request<T>('POST', path, { body: form }),
   put: <T>(path: string, body: unknown) => request<T>('PUT', path, { body }),
   patch: <T>(path: string, body: unknown) => request<T>('PATCH', path, { body }),
   delete: <T>(path: string) => request<T>('DELETE', path),

@@ -1,5 +1,6 @@
 import { mdiAccountCircleOutline, mdiAccountGroupOutline, mdiEmailFastOutline, mdiHomeOutline } from '@mdi/js';
 import { mdiSineWave } from '@mdi/js';
+import { mdiSolderingIron, mdiMeterElectricOutline } from '@mdi/js';
 import type { Action, SubjectName } from '@shared/abilities';
 
 export interface NavItem {
@@ -20,6 +21,8 @@ export const navItems: NavItem[] = [
   { title: 'Home', description: 'Your starting page.', icon: mdiHomeOutline, to: 'home', hideOnHome: true },
   { title: 'People', description: 'Invite people, give them roles and sites, and switch accounts off with a reason.', icon: mdiAccountGroupOutline, to: 'people', can: ['invite', 'User'] },
   { title: 'Outgoing mail', description: 'Every message the portal has sent, with its full text.', icon: mdiEmailFastOutline, to: 'outbox', can: ['read', 'MailLog'] },
+  { title: 'Benches', description: 'Bench set-up, inspection dates and signed pre-use checks.', icon: mdiSolderingIron, to: 'benches', can: ['read', 'Bench'] },
+  { title: 'Test instruments', description: 'Measurement category, voltage rating and calibration of the instruments in use.', icon: mdiMeterElectricOutline, to: 'instruments', can: ['read', 'Instrument'] },
   { title: 'Bench calculator', description: 'Firing angle, power, waveforms and device temperature for a phase-control circuit; published test limits.', icon: mdiSineWave, to: 'calculator' },
   { title: 'Your account', description: 'Your details, roles and sites, and your password.', icon: mdiAccountCircleOutline, to: 'profile' },
 ];

@@ -23,6 +23,8 @@ export const routes: RouteRecordRaw[] = [
   { path: '/profile', name: 'profile', component: () => import('@/views/ProfileView.vue'), meta: { title: 'Your account' } },
   { path: '/people', name: 'people', component: () => import('@/views/PeopleView.vue'), meta: { title: 'People', can: ['invite', 'User'] } },
   { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { title: 'Outgoing mail', can: ['read', 'MailLog'] } },
+  { path: '/benches', name: 'benches', component: () => import('@/views/BenchesView.vue'), meta: { title: 'Benches', can: ['read', 'Bench'] } },
+  { path: '/instruments', name: 'instruments', component: () => import('@/views/InstrumentsView.vue'), meta: { title: 'Test instruments', can: ['read', 'Instrument'] } },
   { path: '/calculator', name: 'calculator', component: () => import('@/views/CalculatorView.vue'), meta: { title: 'Bench calculator' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { title: 'Page not found' } },
 ];

@@ -1,6 +1,6 @@
 import type { Deps } from '../deps.js';
 import { grantableRoles, subjectOf, type Actor, type AppAbility } from '../../shared/abilities.js';
-import type { InviteBody, UpdatePersonBody } from '../../shared/schemas/people.js';
+import type { InviteBody, PersonDetail, UpdatePersonBody } from '../../shared/schemas/people.js';
 import type { Role } from '../../shared/roles.js';
 import { accessibleWhere } from '../authz/casl-sql.js';
 import { users } from '../db/schema/index.js';
@@ -8,6 +8,7 @@ import { conflict, forbidden, notFound, unprocessable } from '../errors.js';
 import type { AuthService } from '../auth/auth.service.js';
 import { countSites } from '../sites/sites.repository.js';
 import * as repo from './people.repository.js';
+import { endAuthorisationsOf } from '../authorisations/ending.js';
 
 export function makePeopleService(deps: Deps, auth: AuthService) {
   const { db, clock, audit } = deps;
@@ -19,7 +20,7 @@ export function makePeopleService(deps: Deps, auth: AuthService) {
     return { user, roles, coveredSiteIds };
   }
 
-  function present(v: Awaited<ReturnType<typeof view>>) {
+  function present(v: Awaited<ReturnType<typeof view>>): PersonDetail {
     const { user, roles, coveredSiteIds } = v;
     return {
       id: user.id, email: user.email, name: user.name, siteId: user.siteId, roles, coveredSiteIds, active: user.active,
@@ -103,6 +104,7 @@ export function makePeopleService(deps: Deps, auth: AuthService) {
       await repo.updateUser(tx, id, patch);
       if (body.roles) await repo.replaceRoles(tx, id, body.roles);
       if (body.coveredSiteIds) await repo.replaceCoveredSites(tx, id, body.coveredSiteIds.filter((s) => s !== (body.siteId ?? before.user.siteId)));
+      if (body.active === false && before.user.active) await endAuthorisationsOf(tx, id, { ...deps, actorId: actor.id, reason: body.deactivatedReason! });
       await audit(tx, {
         actorId: actor.id, action: body.active === false ? 'person.deactivated' : 'person.updated', entity: 'user', entityId: id,
         oldValues: pick(present(before), fields), newValues: body,

@@ -49,3 +49,8 @@ export const personRow = z.object({
 export type PersonRow = z.infer<typeof personRow>;
 export type InviteBody = z.infer<typeof inviteBody>;
 export type UpdatePersonBody = z.infer<typeof updatePersonBody>;
+
+/** GET /api/people/:id: a row without the site name, plus the deactivation reason. */
+export const personDetail = personRow.omit({ siteName: true }).extend({ deactivatedReason: z.string().nullable() });
+export type PersonDetail = z.infer<typeof personDetail>;
+export type PeopleQuery = z.infer<typeof peopleQuery>;

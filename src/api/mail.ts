@@ -1,23 +1,8 @@
 import type { Page } from '@shared/schemas/common';
+import type { MailMessage, MailRow } from '@shared/schemas/mail';
 import { api } from './client';
 
-/** A row of the server's mail log (server/db/schema/core.ts `mailLog`, as JSON). */
-export interface MailRow {
-  id: string;
-  toAddress: string;
-  subject: string;
-  kind: string;
-  status: 'sent' | 'failed';
-  fileName: string | null;
-  error: string | null;
-  createdAt: string;
-  sentAt: string | null;
-}
-
-export interface MailMessage extends MailRow {
-  /** The .eml text, or null when the file is gone. */
-  raw: string | null;
-}
+export type { MailRow, MailMessage };
 
 export const mailApi = {
   list: (page: number, pageSize: number) => api.get<Page<MailRow>>('/mail', { page, pageSize }),

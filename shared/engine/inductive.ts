@@ -46,6 +46,8 @@ export function extinctionAngle(alpha: number, phi: number, tolerance = 1e-12): 
   const steps = 4096;
   const h = Math.PI / steps;
   let lo = alpha + h * 1e-3;
+  // A near-zero load angle or α a hair below π: the current has already died within that first sliver.
+  if (extinctionResidual(lo, alpha, phi) <= 0) return Math.max(lo, Math.PI);
   for (let i = 1; i <= steps; i += 1) {
     const hi = alpha + i * h;
     if (extinctionResidual(hi, alpha, phi) <= 0) return bisect((b) => extinctionResidual(b, alpha, phi), lo, hi, tolerance).x;
@@ -87,7 +89,7 @@ export function inductivePhaseControl(p: InductiveParams): InductiveResult {
     outputVrms,
     loadCurrentRmsA: irms,
     outputPowerW: power,
-    powerFactor: power / (v * irms),
+    powerFactor: irms > 0 ? power / (v * irms) : 0, // P/(V·I) = I·R/V, which tends to 0 as the current does
     perDirectionDevice: { averageA: lobeIntegral / (2 * Math.PI), rmsA: irms / Math.SQRT2 },
     triac: { rmsA: irms, meanAbsA: lobeIntegral / Math.PI },
     note: full

@@ -42,8 +42,9 @@ export function thermalCheck(p: ThermalParams): ThermalResult {
   const temps = { junctionC: at(deviceChain), caseC: at(p.rthCaseSinkKW), sinkC: at(0) };
   const { junctionC } = temps;
   const withinLimit = junctionC === null ? null : junctionC <= p.maxJunctionC;
-  if (loss === 0) {
-    return { conductionLossW: 0, ...temps, withinLimit, maxSinkAmbientKW: null, heatsinkPossible: true, statement: 'No conduction loss: no heatsink is needed.' };
+  // No loss, or one so small that any heatsink at all would do (the division would overflow).
+  if (loss === 0 || !Number.isFinite((p.maxJunctionC - p.ambientC) / loss)) {
+    return { conductionLossW: loss, ...temps, withinLimit, maxSinkAmbientKW: null, heatsinkPossible: true, statement: 'No conduction loss: no heatsink is needed.' };
   }
   const rise = p.ambientC + loss * deviceChain;
   if (rise >= p.maxJunctionC) {

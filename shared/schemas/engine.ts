@@ -70,9 +70,10 @@ export const triggerInputSchema = z
       .prefault({}),
     ...waveformOptions,
   })
-  .refine((v) => v.fixedResistanceOhms + v.potentiometerOhms > 0, {
+  // With no resistance the capacitor would sit straight across the supply: not a trigger network, and not solvable.
+  .refine((v) => v.fixedResistanceOhms + v.setting * v.potentiometerOhms >= 1, {
     path: ['fixedResistanceOhms'],
-    message: 'The trigger network needs some series resistance',
+    message: 'The trigger network needs at least 1 Ω of series resistance at this setting',
   })
   .refine((v) => v.diac.breakbackV < v.diac.breakoverV, {
     path: ['diac', 'breakbackV'],

@@ -83,4 +83,13 @@ describe('R-L load', () => {
     expect(r.inrush?.minA).toBeCloseTo((Math.SQRT2 * 230 * 10) / 881.7, 6);
     expect(r.inrush?.maxA).toBeCloseTo((Math.SQRT2 * 230 * 15) / 881.7, 6);
   });
+
+  it('stays finite at the edges: a vanishing load angle just below 180°, and no current at all at 180° (PF taken as its limit, 0)', () => {
+    // Found by fuzzing the schema-valid inputs: this once threw "root is not bracketed".
+    const edge = inductivePhaseControl({ supplyVrms: 1e-3, frequencyHz: 40, resistanceOhms: 1e-6, inductanceH: 5e-324, alphaRad: degToRad(179.99995605468752) });
+    expect(edge.extinctionAngleDeg).toBeCloseTo(180, 6); // φ → 0: the current stops at the voltage zero (resistive limit)
+    const off = inductivePhaseControl({ ...hart, alphaRad: Math.PI });
+    expect(off.loadCurrentRmsA).toBe(0);
+    expect(off.powerFactor).toBe(0);
+  });
 });

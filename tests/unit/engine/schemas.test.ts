@@ -56,6 +56,9 @@ describe('engine input schemas', () => {
     expect(paths(triggerInputSchema.safeParse({ ...trigger, diac: { breakoverV: 32, breakbackV: 40 } }))).toEqual(['diac.breakbackV']);
     expect(paths(triggerInputSchema.safeParse({ ...trigger, setting: 1.5 }))).toEqual(['setting']);
     expect(paths(triggerInputSchema.safeParse({ ...trigger, capacitanceF: 0 }))).toEqual(['capacitanceF']);
+    // No fixed resistor and the pot at zero would put the capacitor straight across the supply.
+    expect(paths(triggerInputSchema.safeParse({ ...trigger, fixedResistanceOhms: 0, setting: 0 }))).toEqual(['fixedResistanceOhms']);
+    expect(triggerInputSchema.safeParse({ ...trigger, fixedResistanceOhms: 0, setting: 0.1 }).success).toBe(true);
   });
 
   it('bounds the waveform request: at most 4000 samples over one or two cycles, and waveform must be a boolean', () => {

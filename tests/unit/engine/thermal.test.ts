@@ -54,4 +54,11 @@ describe('thermal check', () => {
     expect(r.maxSinkAmbientKW).toBeNull();
     expect(r.statement).toMatch(/No heatsink can/);
   });
+
+  it('says no heatsink is needed when the loss is too small to size one (no infinite heatsink figure)', () => {
+    const r = thermalCheck({ thresholdVoltageV: 0, slopeResistanceOhms: 5e-324, averageCurrentA: 0, rmsCurrentA: 0.5, rthJunctionCaseKW: 0, rthCaseSinkKW: 0, rthSinkAmbientKW: 0, ambientC: 0, maxJunctionC: 1 });
+    expect(r.maxSinkAmbientKW).toBeNull();
+    expect(r.heatsinkPossible).toBe(true);
+    expect(r.statement).toMatch(/no heatsink is needed/);
+  });
 });

@@ -1,8 +1,7 @@
 // How a bench or a test instrument stands at a moment: pure, so the server decides and the client can explain.
 import { endOfLocalDay, localDate } from './time.js';
 import type { EquipmentFlag } from './schemas/equipment-common.js';
-import type { RcdType } from './schemas/benches.js';
-import { RMS_READING_KINDS, type InstrumentKind } from './schemas/instruments.js';
+import { RMS_READING_KINDS, type InstrumentKind, type RcdType } from './equipment-terms.js';
 
 export const DUE_SOON_DAYS = 30;
 

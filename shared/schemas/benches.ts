@@ -1,10 +1,9 @@
 import { z } from 'zod';
 import { pageQuery } from './common.js';
 import { activeFilter, calendarDate, equipmentCode, equipmentFlag, notes } from './equipment-common.js';
+import { RCD_TYPES } from '../equipment-terms.js';
 
-// Phase-cut loads leak pulsating DC to earth, which can blind a Type AC RCD; Type A or better is needed.
-export const RCD_TYPES = ['AC', 'A', 'F', 'B'] as const;
-export type RcdType = (typeof RCD_TYPES)[number];
+export { RCD_TYPES, type RcdType } from '../equipment-terms.js';
 
 export const benchFields = z.object({
   siteId: z.uuid({ message: 'choose a site' }),

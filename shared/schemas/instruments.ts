@@ -1,25 +1,9 @@
 import { z } from 'zod';
 import { pageQuery } from './common.js';
 import { activeFilter, calendarDate, equipmentFlag, notes } from './equipment-common.js';
+import { INSTRUMENT_KINDS, MEASUREMENT_CATEGORIES } from '../equipment-terms.js';
 
-export const INSTRUMENT_KINDS = [
-  'multimeter', 'clamp_meter', 'insulation_tester', 'rcd_tester', 'multifunction_tester', 'earth_continuity_tester',
-  'oscilloscope', 'differential_probe', 'current_probe', 'voltage_detector', 'proving_unit', 'other',
-] as const;
-export type InstrumentKind = (typeof INSTRUMENT_KINDS)[number];
-
-export const INSTRUMENT_KIND_LABELS: Record<InstrumentKind, string> = {
-  multimeter: 'Multimeter', clamp_meter: 'Clamp meter', insulation_tester: 'Insulation resistance tester', rcd_tester: 'RCD tester',
-  multifunction_tester: 'Multifunction installation tester', earth_continuity_tester: 'Earth continuity tester', oscilloscope: 'Oscilloscope',
-  differential_probe: 'Differential probe', current_probe: 'Current probe', voltage_detector: 'Two-pole voltage detector',
-  proving_unit: 'Proving unit', other: 'Other',
-};
-
-/** Kinds whose reading depends on the waveform: an averaging one reads a phase-cut output wrongly. */
-export const RMS_READING_KINDS: readonly InstrumentKind[] = ['multimeter', 'clamp_meter'];
-
-// IEC 61010-1 measurement categories; no category means the inputs are not for mains circuits.
-export const MEASUREMENT_CATEGORIES = ['CAT II', 'CAT III', 'CAT IV'] as const;
+export { INSTRUMENT_KINDS, INSTRUMENT_KIND_LABELS, MEASUREMENT_CATEGORIES, RMS_READING_KINDS, type InstrumentKind } from '../equipment-terms.js';
 
 export const instrumentFields = z.object({
   siteId: z.uuid({ message: 'choose a site' }),

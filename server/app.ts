@@ -15,12 +15,15 @@ import { mountRoutes } from './routing.js';
 import { actorMiddleware, sessionMiddleware } from './middleware/session.js';
 import { originCheck } from './middleware/csrf.js';
 import { errorHandler, notFoundApi } from './middleware/errors.js';
+import type { JobsOptions } from './jobs/index.js';
 
 export interface AppOptions {
   config: Config;
   clock?: Clock;
   pool?: pg.Pool;
   mailer?: Mailer;
+  /** Start this process's job queue (pg-boss): server/index.ts does, tests that need it do. */
+  startJobs?: JobsOptions | boolean;
 }
 
 /** Builds the Express app and everything behind it; index.ts listens, tests use it through supertest. */
@@ -82,5 +85,10 @@ export function createApp(opts: AppOptions) {
   app.use(errorHandler);
   app.locals.routeTable = routeTable;
 
-  return { app, deps, services, routeTable, close: () => pool.end() };
+  const jobsReady = opts.startJobs ? services.jobs.start(opts.startJobs === true ? {} : opts.startJobs) : Promise.resolve();
+  const close = async () => {
+    await services.jobs.stop();
+    await pool.end();
+  };
+  return { app, deps, services, routeTable, jobs: services.jobs, jobsReady, close };
 }

@@ -19,6 +19,11 @@ import { makeEvidenceService } from './evidence/evidence.service.js';
 import { evidenceRoutes } from './evidence/evidence.routes.js';
 import { makeEngineService } from './engine/engine.service.js';
 import { engineRoutes } from './engine/engine.routes.js';
+import { makeAuthorisationsFeature } from './authorisations/index.js';
+import { authorisationRoutes } from './authorisations/authorisations.routes.js';
+import { makeReminders } from './reminders/reminders.service.js';
+import { reminderRoutes } from './reminders/reminders.routes.js';
+import { makeJobs } from './jobs/index.js';
 
 /** Every feature's services, built once per app. */
 export function buildServices(deps: Deps) {
@@ -30,7 +35,10 @@ export function buildServices(deps: Deps) {
   const equipment = { usability, benches: makeBenchesService(deps, signatures, usability), instruments: makeInstrumentsService(deps, usability) };
   const evidence = makeEvidenceService(deps);
   const procedures = makeProcedureServices(deps, signatures);
-  return { auth, people, sites, signatures, engine: makeEngineService(), ...equipment, evidence, procedures };
+  const authorisations = makeAuthorisationsFeature(deps, signatures);
+  const reminders = makeReminders(deps);
+  const jobs = makeJobs(deps, reminders);
+  return { auth, people, sites, signatures, engine: makeEngineService(), ...equipment, evidence, procedures, authorisations, reminders, jobs };
 }
 export type Services = ReturnType<typeof buildServices>;
 
@@ -47,5 +55,7 @@ export function buildRouteTable(deps: Deps, s: Services): RouteDef[] {
     ...evidenceRoutes(s.evidence, deps.config.uploadMaxBytes),
     ...engineRoutes(s.engine),
     ...procedureRoutes(s.procedures),
+    ...authorisationRoutes(s.authorisations),
+    ...reminderRoutes(s.reminders, s.jobs),
   ];
 }

@@ -2,7 +2,8 @@ import { loadConfig } from './config.js';
 import { createApp } from './app.js';
 
 const config = loadConfig();
-const { app, close } = createApp({ config });
+const { app, close, jobsReady } = createApp({ config, startJobs: true });
+await jobsReady;
 const server = app.listen(config.port, config.host, () => {
   const addr = server.address();
   const port = typeof addr === 'object' && addr ? addr.port : config.port;

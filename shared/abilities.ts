@@ -1,9 +1,10 @@
 import { AbilityBuilder, createMongoAbility, subject, type MongoAbility, type ForcedSubject, type MongoQuery, type AnyMongoAbility } from '@casl/ability';
 import type { Role } from './roles.js';
 import { procedureRules } from './procedures/abilities.js';
+import { authorisationRules } from './authorisations/abilities.js';
 
 export type Action = 'manage' | 'create' | 'read' | 'update' | 'delete' | 'invite' | 'assignRole' | 'approve';
-export type SubjectName = 'User' | 'Site' | 'MailLog' | 'AuditLog' | 'Bench' | 'BenchCheck' | 'Instrument' | 'Evidence' | 'Procedure' | 'Acknowledgement' | 'ReviewReminder' | 'all';
+export type SubjectName = 'User' | 'Site' | 'MailLog' | 'AuditLog' | 'Bench' | 'BenchCheck' | 'Instrument' | 'Evidence' | 'Procedure' | 'Acknowledgement' | 'ReviewReminder' | 'Scope' | 'Authorisation' | 'Certificate' | 'Reminder' | 'all';
 export type Subject = SubjectName | (ForcedSubject<Exclude<SubjectName, 'all'>> & Record<string, any>);
 // Conditions are plain Mongo-style queries over a record's own fields (id, siteId, userId, …).
 export type AppAbility = MongoAbility<[Action, Subject], MongoQuery<Record<string, any>>>;
@@ -48,6 +49,7 @@ export function defineAbilityFor(actor: Actor | null): AppAbility {
     can('manage', ['Bench', 'Instrument'], { siteId: { $in: sites } });
   }
   procedureRules({ can, cannot }, actor, has);
+  authorisationRules({ can, cannot }, actor, has);
   if (has('auditor')) {
     // Auditors read everything and write nothing.
     can('read', 'all');

@@ -1,0 +1,67 @@
+import type { Executor } from '../db/client.js';
+import { certificatesOf } from './certificates.repository.js';
+import { ackFacts, type PersonRow } from './facts.repository.js';
+import { eventsOf, latestPeriods, type EventRow, type PeriodRow } from './periods.repository.js';
+import { evaluateScope, type EvaluationFacts, type RequirementResult } from './requirements.js';
+import type { ScopeWithRequirements } from './scopes.repository.js';
+import { foldState, type DerivedState } from './states.js';
+
+/** A person's latest period of one scope with all its events: what the decisions work on. */
+export interface Standing {
+  authorisationId: string;
+  period: PeriodRow;
+  events: EventRow[];
+}
+
+/** Everything the evaluators need for one person, in a handful of queries. */
+export async function loadFacts(db: Executor, person: PersonRow, scopes: ScopeWithRequirements[], now: Date) {
+  const procedureIds = [...new Set(scopes.flatMap((s) => s.requirements.filter((r) => r.kind === 'procedure_ack').map((r) => r.procedureId!)))];
+  const [certificates, acks, periods] = await Promise.all([
+    certificatesOf(db, [person.id]),
+    ackFacts(db, person.id, procedureIds),
+    latestPeriods(db, { holderIds: [person.id] }, now),
+  ]);
+  const events = await eventsOf(db, periods.map((p) => p.id));
+  const standings = new Map<string, Standing>();
+  for (const p of periods) standings.set(p.scopeId, { authorisationId: p.authorisationId, period: p, events: events.filter((e) => e.periodId === p.id) });
+  const states = new Map<string, DerivedState>();
+  for (const [scopeId, s] of standings) states.set(scopeId, foldState(s.period, s.events, now));
+  const facts: EvaluationFacts = { person, now, certificates, acks, scopes: new Map(scopes.map((s) => [s.id, s])), states };
+  return { facts, standings };
+}
+
+/** Scopes with the ones they rest on first, so a prerequisite is decided before what depends on it. */
+export function prerequisiteOrder(scopes: ScopeWithRequirements[]): ScopeWithRequirements[] {
+  const byId = new Map(scopes.map((s) => [s.id, s]));
+  const done = new Set<string>();
+  const out: ScopeWithRequirements[] = [];
+  const visit = (s: ScopeWithRequirements, path: Set<string>) => {
+    if (done.has(s.id) || path.has(s.id)) return;
+    path.add(s.id);
+    for (const r of s.requirements) {
+      const dep = r.prerequisiteScopeId ? byId.get(r.prerequisiteScopeId) : undefined;
+      if (dep) visit(dep, path);
+    }
+    done.add(s.id);
+    out.push(s);
+  };
+  for (const s of scopes) visit(s, new Set());
+  return out;
+}
+
+export interface ScopeEligibility {
+  scope: ScopeWithRequirements;
+  results: RequirementResult[];
+  eligible: boolean;
+  state: DerivedState;
+}
+
+/** Each scope judged for the person now, read-only: what the eligibility breakdown shows. */
+export async function eligibilityOf(db: Executor, person: PersonRow, scopes: ScopeWithRequirements[], now: Date): Promise<ScopeEligibility[]> {
+  const { facts } = await loadFacts(db, person, scopes, now);
+  return prerequisiteOrder(scopes).map((scope) => {
+    const results = evaluateScope(scope, facts);
+    const state = facts.states.get(scope.id) ?? foldState(null, [], now);
+    return { scope, results, eligible: results.length > 0 && results.every((r) => r.met), state };
+  });
+}

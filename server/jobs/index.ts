@@ -1,0 +1,85 @@
+import PgBoss from 'pg-boss';
+import type { Deps } from '../deps.js';
+import type { Reminders, SweepResult } from '../reminders/reminders.service.js';
+import { AppError } from '../errors.js';
+import { QUEUES, QUEUE_OPTIONS, SWEEP_CRON } from './queues.js';
+
+export interface JobsOptions {
+  /** How often an idle worker looks for work (pg-boss allows 0.5 s at least). */
+  pollSeconds?: number;
+  /** Install the cron schedule for the sweep (tests that drive the sweep themselves leave it off). */
+  schedule?: boolean;
+}
+
+/**
+ * One pg-boss per app process, on the owner connection (DATABASE_URL without the application role) and
+ * its own schema. Workers receive arrays of jobs. Nothing runs until start(); stop() drains and closes.
+ */
+export function makeJobs(deps: Deps, reminders: Reminders) {
+  let boss: PgBoss | null = null;
+  let starting: Promise<void> | null = null;
+
+  async function afterSweep(result: SweepResult) {
+    if (!boss || !result.nextAttemptAt) return;
+    const seconds = Math.max(1, Math.ceil((new Date(result.nextAttemptAt).getTime() - deps.clock.now().getTime()) / 1000));
+    await boss.sendAfter(QUEUES.deliver, {}, { singletonKey: 'retry' }, seconds);
+  }
+
+  async function boot(opts: JobsOptions) {
+    const b = new PgBoss({ connectionString: deps.config.databaseUrl, schema: 'pgboss', max: 4, application_name: 'breakover-jobs', schedule: opts.schedule !== false });
+    b.on('error', (err) => console.error(`[jobs] ${err.message}`));
+    await b.start();
+    // In sequence, and only when missing: creating one queue from two processes at once can deadlock.
+    for (const q of QUEUE_OPTIONS) if (!(await b.getQueue(q.name))) await b.createQueue(q.name, q.options);
+    if (opts.schedule !== false) await b.schedule(QUEUES.sweep, SWEEP_CRON, { scheduled: true }, { tz: 'UTC' });
+    const work = { batchSize: 1, pollingIntervalSeconds: opts.pollSeconds ?? 2 };
+    await b.work(QUEUES.sweep, work, async (jobs) => {
+      const out: (SweepResult & { pid: number })[] = [];
+      for (const _job of jobs) out.push({ ...(await reminders.sweep()), pid: process.pid });
+      await afterSweep(out[out.length - 1]);
+      return out.length === 1 ? out[0] : out;
+    });
+    await b.work(QUEUES.deliver, work, async (jobs) => {
+      const out: object[] = [];
+      for (const _job of jobs) {
+        const delivered = await reminders.deliver();
+        out.push({ ...delivered, pid: process.pid });
+      }
+      return out[0];
+    });
+    boss = b;
+  }
+
+  return {
+    start(opts: JobsOptions = {}): Promise<void> {
+      starting ??= boot(opts);
+      return starting;
+    },
+    async stop() {
+      await starting?.catch(() => undefined);
+      const b = boss;
+      boss = null;
+      starting = null;
+      if (b) await b.stop({ graceful: true, wait: true, timeout: 10_000 });
+    },
+    get running() {
+      return boss !== null;
+    },
+    /** Asks for a sweep now; any process's worker may take it. */
+    async requestSweep(requestedBy: string | null): Promise<string> {
+      if (!boss) throw new AppError(503, 'jobs_not_running', 'The job queue is not running in this server process; the scheduled sweep runs where it is.');
+      const id = await boss.send(QUEUES.sweep, { requestedBy });
+      if (!id) throw new AppError(503, 'jobs_not_running', 'The job queue did not take the request.');
+      return id;
+    },
+    async job(id: string) {
+      if (!boss) throw new AppError(503, 'jobs_not_running', 'The job queue is not running in this server process.');
+      return boss.getJobById(QUEUES.sweep, id, { includeArchive: true });
+    },
+    /** The queue's own database connection, for tests that look at finished jobs. */
+    get boss() {
+      return boss;
+    },
+  };
+}
+export type Jobs = ReturnType<typeof makeJobs>;

@@ -1,0 +1,17 @@
+import type PgBoss from 'pg-boss';
+
+/** Every queue, created once at boot in this order (pg-boss 10 needs a queue before the first send). */
+export const QUEUES = {
+  sweep: 'reminders-sweep',
+  deliver: 'reminders-deliver',
+} as const;
+
+export const QUEUE_OPTIONS: { name: string; options: PgBoss.Queue }[] = [
+  // A sweep that throws (the database went away, say) is retried with growing delays.
+  { name: QUEUES.sweep, options: { name: QUEUES.sweep, policy: 'standard', retryLimit: 10, retryDelay: 30, retryBackoff: true, expireInSeconds: 15 * 60 } },
+  // Re-delivery of failed sends: one waiting at a time is enough.
+  { name: QUEUES.deliver, options: { name: QUEUES.deliver, policy: 'short', retryLimit: 10, retryDelay: 30, retryBackoff: true, expireInSeconds: 15 * 60 } },
+];
+
+/** Every ten minutes: often enough that a lapse notice follows the lapse closely. */
+export const SWEEP_CRON = '*/10 * * * *';

@@ -1,0 +1,101 @@
+import type { Deps } from '../deps.js';
+import type { Actor } from '../../shared/abilities.js';
+import { reevaluatePerson } from '../authorisations/issuing.js';
+import * as repo from './reminders.repository.js';
+import { mailFor } from './context.js';
+
+const MINUTE = 60_000;
+/** 1, 2, 4 … minutes between attempts, at most 6 hours: a failing transport is retried until it works. */
+export const backoffMs = (attempts: number) => Math.min(6 * 60 * MINUTE, MINUTE * 2 ** Math.max(0, attempts - 1));
+
+export interface SweepResult {
+  reevaluated: number;
+  planned: number;
+  sent: number;
+  failed: number;
+  cancelled: number;
+  /** When the next failed send is due again, if any. */
+  nextAttemptAt: string | null;
+}
+
+/**
+ * The sweep: record what lapsed or must be suspended by now, record the reminders and notices that are
+ * due, then deliver every due send. Safe to run in several processes at once.
+ */
+export function makeReminders(deps: Deps) {
+  const { db, clock, mailer, config, audit } = deps;
+
+  async function recordDue(): Promise<number> {
+    const now = clock.now();
+    const people = new Set([
+      ...(await repo.lapseCandidates(db, now, 2000)),
+      ...(await repo.graceCandidates(db, now, 2000)),
+      ...(await repo.rereadCandidates(db, now, 2000)),
+    ]);
+    for (const id of people) await db.transaction((tx) => reevaluatePerson(tx, id, { ...deps, actorId: null }));
+    return people.size;
+  }
+
+  async function plan(): Promise<number> {
+    return db.transaction(async (tx) => {
+      const n = await repo.planSends(tx, clock.now());
+      if (n) await audit(tx, { actorId: null, action: 'reminders.planned', entity: 'reminder_sends', entityId: clock.now().toISOString(), newValues: { count: n } });
+      return n;
+    });
+  }
+
+  async function deliver() {
+    const out = { sent: 0, failed: 0, cancelled: 0 };
+    for (let round = 0; round < 1000; round++) {
+      const claimed = await db.transaction(async (tx) => {
+        const now = clock.now();
+        const batch = await repo.claimDue(tx, now, 10);
+        for (const s of batch) {
+          const to = await repo.recipientOf(tx, s.recipientId);
+          const mail = to?.active ? await mailFor(tx, config, s, to.name, now) : null;
+          if (!to || !mail) {
+            await repo.cancelSend(tx, s.id);
+            out.cancelled++;
+            continue;
+          }
+          try {
+            const sent = await mailer.send({ to: to.email, ...mail });
+            await repo.markSent(tx, s.id, sent.id, clock.now());
+            out.sent++;
+          } catch (err) {
+            // Still pending: it is marked sent only after the transport has taken it.
+            await repo.markFailed(tx, s.id, s.attempts + 1, new Date(now.getTime() + backoffMs(s.attempts + 1)), (err as Error).message);
+            out.failed++;
+          }
+        }
+        return batch.length;
+      });
+      if (!claimed) break;
+    }
+    return out;
+  }
+
+  async function sweep(): Promise<SweepResult> {
+    const reevaluated = await recordDue();
+    const planned = await plan();
+    const delivered = await deliver();
+    const next = await repo.nextPendingAt(db);
+    return { reevaluated, planned, ...delivered, nextAttemptAt: next?.toISOString() ?? null };
+  }
+
+  async function list(actor: Actor, q: { status?: string; page: number; pageSize: number }) {
+    const all = actor.roles.includes('admin') || actor.roles.includes('auditor');
+    const { items, total } = await repo.listSends(db, { ...q, siteIds: all ? null : [...actor.siteIds] });
+    return {
+      items: items.map(({ send: s, recipientName, recipientEmail }) => ({
+        id: s.id, periodId: s.periodId, certificateId: s.certificateId, offsetDays: s.offsetDays, recipientName, recipientEmail, recipientRole: s.recipientRole,
+        dueAt: s.dueAt.toISOString(), status: s.status, attempts: s.attempts, nextAttemptAt: s.nextAttemptAt.toISOString(), lastError: s.lastError,
+        sentAt: s.sentAt?.toISOString() ?? null,
+      })),
+      total, page: q.page, pageSize: q.pageSize,
+    };
+  }
+
+  return { sweep, recordDue, plan, deliver, list };
+}
+export type Reminders = ReturnType<typeof makeReminders>;

@@ -1,0 +1,92 @@
+import { z } from 'zod';
+import { isoDate, pageQuery } from './common.js';
+import { CERTIFICATE_KINDS, PENDING_REQUIREMENT_KINDS } from '../authorisations/kinds.js';
+
+const password = z.string().min(1, 're-enter your password to sign').max(1024, 'password is too long');
+const reason = z.string().trim().min(3, 'give a reason').max(500, 'use at most 500 characters');
+
+export const requirementBody = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('procedure_ack'), procedureId: z.uuid({ message: 'choose a procedure' }) }).strict(),
+  z.object({ kind: z.literal('prerequisite'), scopeId: z.uuid({ message: 'choose the scope it rests on' }) }).strict(),
+  z.object({ kind: z.literal('certificate'), certificateKind: z.enum(CERTIFICATE_KINDS, { message: 'choose a kind of certificate' }) }).strict(),
+  // Named so the server can say why it refuses them (422) instead of a bare "invalid kind".
+  z.object({ kind: z.enum(PENDING_REQUIREMENT_KINDS) }).passthrough(),
+], { message: 'kind: use procedure_ack, prerequisite or certificate' });
+
+export const scopeBody = z.object({
+  code: z.string().trim().toUpperCase().regex(/^[A-Z0-9][A-Z0-9-]{1,23}$/, 'use 2–24 capital letters, digits or hyphens'),
+  title: z.string().trim().min(3, 'enter a title').max(160, 'use at most 160 characters'),
+  description: z.string().trim().max(2000, 'use at most 2000 characters').default(''),
+  maxVoltageV: z.number({ message: 'enter the voltage limit in volts' }).int('use whole volts').min(1, 'at least 1 V').max(1000, 'at most 1000 V'),
+  maxCurrentA: z.number({ message: 'enter the current limit in amperes' }).gt(0, 'more than 0 A').max(100, 'at most 100 A'),
+  allowsLiveWork: z.boolean(),
+  validityMonths: z.number().int('use whole months').min(1, 'at least 1 month').max(60, 'at most 60 months'),
+  reminderOffsetsDays: z.array(z.number().int().min(1, 'at least 1 day').max(365, 'at most 365 days')).max(6, 'at most 6 reminders')
+    .refine((a) => new Set(a).size === a.length, 'each offset once').default([60, 30, 7]),
+  certificateGraceDays: z.number().int().min(0, 'zero or more days').max(90, 'at most 90 days').default(0),
+  active: z.boolean().default(true),
+  requirements: z.array(requirementBody).max(20, 'at most 20 requirements').default([]),
+}).strict();
+
+export const certificateBody = z.object({
+  holderId: z.uuid({ message: 'choose the person' }).optional(),
+  kind: z.enum(CERTIFICATE_KINDS, { message: 'choose a kind of certificate' }),
+  issuer: z.string().trim().min(2, 'name who issued it').max(160),
+  reference: z.string().trim().max(80).default(''),
+  issuedOn: isoDate,
+  expiresOn: isoDate,
+  evidenceId: z.uuid({ message: 'evidenceId must be an uploaded file id' }).optional(),
+}).strict();
+
+export const signBody = z.object({ password }).strict();
+export const rejectBody = z.object({ reason }).strict();
+export const actionBody = z.object({ reason, password }).strict();
+
+export const priorBody = z.object({
+  holderId: z.uuid({ message: 'choose the person' }),
+  scopeId: z.uuid({ message: 'choose the scope' }),
+  issuedOn: isoDate,
+  expiresOn: isoDate,
+  attestedBy: z.string().trim().min(3, 'name who attested the paper record').max(200),
+  evidenceId: z.uuid({ message: 'evidenceId must be an uploaded file id' }).optional(),
+  note: z.string().trim().max(1000).default(''),
+  password,
+}).strict();
+
+export const importBody = z.object({
+  csv: z.string().min(1, 'paste or choose a CSV file').max(200_000, 'the file is larger than 200 kB'),
+  dryRun: z.boolean(),
+  password: z.string().max(1024).optional(),
+}).strict();
+
+export const authorisationsQuery = pageQuery.extend({
+  holderId: z.uuid().optional(),
+  siteId: z.uuid().optional(),
+  scopeId: z.uuid().optional(),
+});
+
+export const dueQuery = pageQuery.omit({ q: true }).extend({
+  siteId: z.uuid({ message: 'choose a site' }).optional(),
+  withinDays: z.coerce.number().int().min(1).max(365).default(60),
+});
+
+export const certificatesQuery = pageQuery.omit({ q: true }).extend({
+  holderId: z.uuid().optional(),
+  siteId: z.uuid().optional(),
+  status: z.enum(['submitted', 'verified', 'rejected']).optional(),
+});
+
+export const periodQuery = z.object({ periodId: z.uuid({ message: 'periodId must be a UUID' }).optional() });
+export const personScopeParams = z.object({ personId: z.uuid({ message: 'personId must be a UUID' }), scopeId: z.uuid({ message: 'scopeId must be a UUID' }) });
+export const personParam = z.object({ personId: z.uuid({ message: 'personId must be a UUID' }) });
+export const codeParam = z.object({ code: z.string().max(100) });
+
+export type RequirementBody = z.infer<typeof requirementBody>;
+export type ScopeBody = z.infer<typeof scopeBody>;
+export type ScopeInput = z.input<typeof scopeBody>;
+export type CertificateBody = z.infer<typeof certificateBody>;
+export type PriorBody = z.infer<typeof priorBody>;
+export type ImportBody = z.infer<typeof importBody>;
+export type AuthorisationsQuery = z.infer<typeof authorisationsQuery>;
+export type DueQuery = z.infer<typeof dueQuery>;
+export type CertificatesQuery = z.infer<typeof certificatesQuery>;

@@ -7,6 +7,13 @@ import { addDays, earliest } from './dates.js';
 export const windowDays = (scope: Pick<ScopeRow, 'reminderOffsetsDays'>) => (scope.reminderOffsetsDays.length ? Math.max(...scope.reminderOffsetsDays) : 30);
 export const windowStart = (period: Pick<PeriodRow, 'endsAt'>, scope: Pick<ScopeRow, 'reminderOffsetsDays'>) => addDays(period.endsAt, -windowDays(scope));
 
+/** Evidence that renews a period: recorded inside its renewal window, and after the period began (not what it was issued on). */
+export const freshSince = (period: Pick<PeriodRow, 'endsAt' | 'startsAt'>, scope: Pick<ScopeRow, 'reminderOffsetsDays'>) => {
+  const opens = windowStart(period, scope);
+  const afterStart = new Date(period.startsAt.getTime() + 1);
+  return opens > afterStart ? opens : afterStart;
+};
+
 const isPrior = (origin: string) => origin === 'prior' || origin === 'imported';
 
 /**

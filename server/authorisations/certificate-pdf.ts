@@ -77,7 +77,8 @@ export async function certificatePdf(d: CertificateData): Promise<Uint8Array> {
   y = qrTop;
   write('Check it', { size: 11, font: bold, width: 350, gap: 2 });
   write(`Verification code: ${d.verificationCode}`, { font: bold, width: 350 });
-  write(`Scan the code or open ${d.verifyUrl} to see whether this authorisation is current.`, { width: 350, gap: 40 });
+  write(`Scan the code or open ${d.verifyUrl} to see whether this authorisation is current.`, { width: 350 });
+  y = Math.min(y, qrTop - 145);
   write(d.caution, { size: 10, font: bold, color: WARN, gap: 10 });
   write(`Printed ${d.producedAt}. A printed certificate may be out of date: the verification page is the record.`, { size: 8, color: MUTED });
   return doc.save();

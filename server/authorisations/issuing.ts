@@ -5,7 +5,7 @@ import { scopesWithRequirements, type ScopeWithRequirements } from './scopes.rep
 import { ensureAuthorisation, insertPeriod, setPeriodEnd } from './periods.repository.js';
 import { loadFacts, prerequisiteOrder, type Standing } from './eligibility.js';
 import { evaluateScope, type EvaluationFacts, type RequirementResult } from './requirements.js';
-import { allMet, capsFor, isFresh, plannedEnd, whatSetsTheEnd, windowStart } from './caps.js';
+import { allMet, capsFor, freshSince, isFresh, plannedEnd, whatSetsTheEnd, windowStart } from './caps.js';
 import { syncHolds } from './holds.js';
 import { evidenceSnapshot } from './snapshot.js';
 import { foldState } from './states.js';
@@ -73,8 +73,7 @@ async function recordLapse(w: Writer, scope: ScopeWithRequirements, st: Standing
 
 async function renewIfDue(w: Writer, person: PersonRow, scope: ScopeWithRequirements, st: Standing, results: RequirementResult[]) {
   if (foldState(st.period, st.events, w.now).state !== 'active' || !allMet(results) || !scope.active || !person.active) return undefined;
-  const opens = windowStart(st.period, scope);
-  if (w.now < opens || !isFresh(results, opens)) return undefined;
+  if (w.now < windowStart(st.period, scope) || !isFresh(results, freshSince(st.period, scope))) return undefined;
   const validity = validityEnd(w.now, scope.validityMonths, person.timeZone);
   const caps = capsFor(scope, 'renewed', results);
   const end = plannedEnd(validity, caps, w.now);
@@ -94,7 +93,7 @@ async function issueIfComplete(w: Writer, person: PersonRow, scope: ScopeWithReq
     // Cut short by what it rested on: it resumes, up to its original validity, once that is back.
     if (!closing && cutShort) validity = st.period.validityEndsAt;
     // Ran its full validity: it needs evidence recorded since its renewal window opened.
-    else if (!closing && !isFresh(results, windowStart(st.period, scope))) return undefined;
+    else if (!closing && !isFresh(results, freshSince(st.period, scope))) return undefined;
   }
   const caps = capsFor(scope, 'issued', results);
   const end = plannedEnd(validity, caps, w.now);

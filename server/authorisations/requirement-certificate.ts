@@ -18,7 +18,8 @@ export const evaluateCertificate: Evaluator = (req, facts) => {
       ...base, met: true,
       detail: `${name} from ${best.issuer}, valid until ${formatDay(best.expiresOn)}.`,
       evidence: current.map((c) => ({ type: 'certificate' as const, id: c.id, label: `${name} from ${c.issuer}${c.reference ? ` (${c.reference})` : ''}, valid ${formatDay(c.issuedOn)} to ${formatDay(c.expiresOn)}`, at: c.reviewedAt! })),
-      metSince: best.reviewedAt, restsUntil: best.validUntil,
+      // The newest check counts as fresh evidence, even when an older certificate runs longer.
+      metSince: new Date(Math.max(...current.map((c) => c.reviewedAt!.getTime()))), restsUntil: best.validUntil,
     };
   }
   const pending = ofKind.some((c) => c.status === 'submitted');

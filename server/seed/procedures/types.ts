@@ -1,0 +1,36 @@
+import type { ChecklistInput } from '../../../shared/schemas/checklists.js';
+import type { ChangeClass, ProcedureCategory } from '../../../shared/schemas/procedures.js';
+
+/** A step with a local name, so the same step keeps its key from one version to the next. */
+export interface SeedStep {
+  id: string;
+  text: string;
+  caution?: string;
+  holdPoint?: boolean;
+}
+
+export interface SeedVersion {
+  title: string;
+  scope: string;
+  hazards: string[];
+  ppe: string[];
+  equipment: string[];
+  steps: SeedStep[];
+  checklists: ChecklistInput[];
+  change?: { changeClass: ChangeClass; summary: string };
+  rereadDays?: number;
+  /** Days before the demo is seeded that this version was published (omitted: left in review). */
+  publishedDaysAgo?: number;
+}
+
+export interface SeedProcedure {
+  code: string;
+  site: string;
+  category: ProcedureCategory;
+  reviewPeriodMonths: number;
+  author: string;
+  approver: string;
+  versions: SeedVersion[];
+  /** Who acknowledged which version number (by e-mail). */
+  acknowledgements: { email: string; version: number }[];
+}

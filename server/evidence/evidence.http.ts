@@ -34,15 +34,20 @@ function disposition(type: 'inline' | 'attachment', name: string): string {
   return `${type}; filename="${ascii}"; filename*=UTF-8''${encoded}`;
 }
 
-/** Sends stored evidence so that no browser runs it: its own type only, no sniffing, no scripts, images inline and the rest downloaded. */
-export function sendEvidence(res: Response, meta: EvidenceRow, bytes: Buffer): void {
+/**
+ * Sends stored evidence so that no browser runs it: its own type only, no sniffing, no scripts, images
+ * inline and the rest downloaded. A PDF asked for as a preview opens inline in the browser's own viewer,
+ * framed by our pages only (a sandboxed response would stop the viewer from drawing it).
+ */
+export function sendEvidence(res: Response, meta: EvidenceRow, bytes: Buffer, preview = false): void {
   const image = meta.mediaType.startsWith('image/');
+  const pdfPreview = preview && meta.mediaType === 'application/pdf';
   res.status(200);
   res.setHeader('Content-Type', meta.mediaType === 'text/csv' ? 'text/csv; charset=utf-8' : meta.mediaType);
   res.setHeader('Content-Length', String(bytes.length));
-  res.setHeader('Content-Disposition', disposition(image ? 'inline' : 'attachment', meta.fileName));
+  res.setHeader('Content-Disposition', disposition(image || pdfPreview ? 'inline' : 'attachment', meta.fileName));
   res.setHeader('X-Content-Type-Options', 'nosniff');
-  res.setHeader('Content-Security-Policy', "default-src 'none'; frame-ancestors 'none'; sandbox");
+  res.setHeader('Content-Security-Policy', pdfPreview ? "default-src 'none'; frame-ancestors 'self'" : "default-src 'none'; frame-ancestors 'none'; sandbox");
   res.setHeader('Cache-Control', 'private, no-store');
   res.setHeader('Repr-Digest', `sha-256=:${createHash('sha256').update(bytes).digest('base64')}:`);
   res.end(bytes);

@@ -1,8 +1,11 @@
+import { z } from 'zod';
 import { route, type RouteDef } from '../routing.js';
 import { uuidParam } from '../../shared/schemas/common.js';
 import { evidenceQuery, evidenceUploadFields } from '../../shared/schemas/evidence.js';
 import type { makeEvidenceService } from './evidence.service.js';
 import { parseUpload, sendEvidence } from './evidence.http.js';
+
+const contentQuery = z.object({ preview: z.enum(['0', '1']).optional() });
 
 export function evidenceRoutes(evidence: ReturnType<typeof makeEvidenceService>, uploadMaxBytes: number): RouteDef[] {
   return [
@@ -14,10 +17,10 @@ export function evidenceRoutes(evidence: ReturnType<typeof makeEvidenceService>,
     }),
     route({ method: 'get', path: '/evidence/:id', access: ['read', 'Evidence'], params: uuidParam, handler: async ({ ability, params }) => evidence.get(ability, params.id) }),
     route({
-      method: 'get', path: '/evidence/:id/content', access: ['read', 'Evidence'], params: uuidParam,
-      handler: async ({ res, ability, params }) => {
+      method: 'get', path: '/evidence/:id/content', access: ['read', 'Evidence'], params: uuidParam, query: contentQuery,
+      handler: async ({ res, ability, params, query }) => {
         const { meta, bytes } = await evidence.content(ability, params.id);
-        sendEvidence(res, meta, bytes);
+        sendEvidence(res, meta, bytes, query.preview === '1');
         return undefined;
       },
     }),

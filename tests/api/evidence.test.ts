@@ -72,6 +72,17 @@ describe('evidence upload', () => {
     expect(cd.headers['content-type']).toBe('text/csv; charset=utf-8');
     expect(cd.headers['content-disposition']).toMatch(/^attachment; filename="rcd-trip-log.csv"/);
     expect(cd.headers['content-security-policy']).toMatch(/^default-src 'none'/);
+    const csvPreview = await asBytes(tech.get(`/api/evidence/${c.body.id}/content`).query({ preview: '1' }));
+    expect(csvPreview.headers['content-disposition'], 'only PDFs open as a preview').toMatch(/^attachment/);
+  });
+
+  it('when a PDF is asked for as a preview, then it opens inline, framed only by our own pages, never sniffed', async () => {
+    const p = await upload(tech, await makePdf(), 'insulation test.pdf');
+    const res = await asBytes(tech.get(`/api/evidence/${p.body.id}/content`).query({ preview: '1' }));
+    expect(res.headers['content-type']).toBe('application/pdf');
+    expect(res.headers['content-disposition']).toMatch(/^inline; filename="insulation test.pdf"/);
+    expect(res.headers['content-security-policy']).toBe("default-src 'none'; frame-ancestors 'self'");
+    expect(res.headers['x-content-type-options']).toBe('nosniff');
   });
 
   it('when a CSV is not CSV (binary bytes, or rows that do not parse), then it is refused naming file', async () => {

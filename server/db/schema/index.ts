@@ -5,3 +5,4 @@ export * from './evidence.js';
 export * from './procedures.js';
 export * from './acknowledgements.js';
 export * from './authorisations.js';
+export * from './practicals.js';

@@ -5,7 +5,7 @@ export const EVIDENCE_MEDIA_TYPES = ['image/jpeg', 'image/png', 'application/pdf
 export type EvidenceMediaType = (typeof EVIDENCE_MEDIA_TYPES)[number];
 
 /** Records evidence can belong to; a later feature adds its record kind here and a link check on the server. */
-export const EVIDENCE_ENTITIES = ['person', 'bench_check'] as const;
+export const EVIDENCE_ENTITIES = ['person', 'bench_check', 'signoff', 'practical'] as const;
 export type EvidenceEntity = (typeof EVIDENCE_ENTITIES)[number];
 
 /** The extensions a name may carry for each detected type (the bytes decide the type; the name must not contradict it). */

@@ -1,0 +1,65 @@
+import { z } from 'zod';
+import { pageQuery } from './common.js';
+
+export const SIGNOFF_KINDS = ['self-sign-off', 'bench-pre-use'] as const;
+export type SignoffKind = (typeof SIGNOFF_KINDS)[number];
+
+export const SIGNOFF_STATUSES = ['in_progress', 'submitted', 'countersigned', 'returned', 'recorded'] as const;
+export type SignoffStatus = (typeof SIGNOFF_STATUSES)[number];
+export const SIGNOFF_STATUS_LABELS: Record<SignoffStatus, string> = {
+  in_progress: 'Being filled in',
+  submitted: 'Signed, awaiting countersignature',
+  countersigned: 'Countersigned',
+  returned: 'Returned for correction',
+  recorded: 'Signed pre-use check',
+};
+
+export const COMPLETED_MEANING = 'completed as recorded';
+export const COUNTERSIGNED_MEANING = 'countersigned';
+
+/**
+ * One checklist entry as it is made; which fields count depends on the item's kind (tick: checked,
+ * text: text, evidence: evidenceId, measurement: value, unit, instrument). The server names a missing one.
+ */
+export const entryBody = z.object({
+  checked: z.boolean({ message: 'tick or untick' }).optional(),
+  text: z.string().trim().max(4000, 'use at most 4000 characters').optional(),
+  evidenceId: z.uuid({ message: 'choose an uploaded file' }).optional(),
+  value: z.union([z.number({ message: 'enter a number' }).min(-1e9).max(1e9), z.literal('did-not-trip')], { error: 'enter a number, or "did-not-trip" for a trip test' }).optional(),
+  unit: z.string().trim().min(1, 'give the unit').max(20).optional(),
+  instrumentId: z.uuid({ message: 'choose the instrument used' }).optional(),
+  /** Only where no expectation could be computed: the assessor's own judgement. */
+  assessorVerdict: z.enum(['pass', 'fail'], { message: 'say whether the reading is acceptable' }).optional(),
+  note: z.string().trim().max(1000, 'use at most 1000 characters').optional(),
+}).strict();
+export type EntryBody = z.infer<typeof entryBody>;
+
+export const openSignoffBody = z.object({
+  procedureId: z.uuid({ message: 'choose the procedure' }),
+  versionId: z.uuid({ message: 'choose the procedure version' }),
+  checklistId: z.uuid({ message: 'choose the checklist' }),
+  benchId: z.uuid({ message: 'choose the bench' }).optional(),
+});
+export type OpenSignoffBody = z.infer<typeof openSignoffBody>;
+
+export const submitSignoffBody = z.object({
+  password: z.string().min(1, 're-enter your password to sign').max(1024),
+  /** A bench pre-use check whose readings fail is still recorded, as a failed check, when the person says so. */
+  recordAsFailed: z.boolean().default(false),
+});
+export const countersignBody = z.object({ password: z.string().min(1, 're-enter your password to sign').max(1024) });
+export const returnSignoffBody = z.object({ comment: z.string().trim().min(3, 'say what needs correcting').max(4000) });
+
+export const signoffListQuery = pageQuery.extend({
+  view: z.enum(['mine', 'site']).default('mine'),
+  status: z.enum(SIGNOFF_STATUSES).optional(),
+  kind: z.enum(SIGNOFF_KINDS).optional(),
+  siteId: z.uuid().optional(),
+  /** Only what the reader could countersign: submitted self sign-offs of other people. */
+  awaitingMe: z.enum(['true', 'false']).transform((v) => v === 'true').optional(),
+  sort: z.enum(['updatedAt', 'submittedAt', 'status']).default('updatedAt'),
+  dir: z.enum(['asc', 'desc']).default('desc'),
+});
+export type SignoffListQuery = z.infer<typeof signoffListQuery>;
+
+export const itemParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }), itemId: z.uuid({ message: 'itemId must be a UUID' }) });

@@ -19,6 +19,8 @@ import { makeEvidenceService } from './evidence/evidence.service.js';
 import { evidenceRoutes } from './evidence/evidence.routes.js';
 import { makeEngineService } from './engine/engine.service.js';
 import { engineRoutes } from './engine/engine.routes.js';
+import { makeSignoffsFeature, signoffRoutes } from './signoffs/signoffs.feature.js';
+import { makePracticalsFeature, practicalRoutes } from './practicals/practicals.feature.js';
 import { makeAuthorisationsFeature } from './authorisations/index.js';
 import { authorisationRoutes } from './authorisations/authorisations.routes.js';
 import { makeReminders } from './reminders/reminders.service.js';
@@ -38,7 +40,9 @@ export function buildServices(deps: Deps) {
   const authorisations = makeAuthorisationsFeature(deps, signatures);
   const reminders = makeReminders(deps);
   const jobs = makeJobs(deps, reminders);
-  return { auth, people, sites, signatures, engine: makeEngineService(), ...equipment, evidence, procedures, authorisations, reminders, jobs };
+  const signoffs = makeSignoffsFeature(deps, signatures, usability);
+  const practicals = makePracticalsFeature(deps, signatures, usability);
+  return { auth, people, sites, signatures, engine: makeEngineService(), ...equipment, evidence, procedures, authorisations, reminders, jobs, signoffs, practicals };
 }
 export type Services = ReturnType<typeof buildServices>;
 
@@ -55,6 +59,8 @@ export function buildRouteTable(deps: Deps, s: Services): RouteDef[] {
     ...evidenceRoutes(s.evidence, deps.config.uploadMaxBytes),
     ...engineRoutes(s.engine),
     ...procedureRoutes(s.procedures),
+    ...signoffRoutes(s.signoffs),
+    ...practicalRoutes(s.practicals),
     ...authorisationRoutes(s.authorisations),
     ...reminderRoutes(s.reminders, s.jobs),
   ];

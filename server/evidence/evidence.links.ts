@@ -2,6 +2,8 @@ import { z } from 'zod';
 import type { Executor } from '../db/client.js';
 import type { EvidenceEntity } from '../../shared/schemas/evidence.js';
 import { findCheck } from '../benches/benches.repository.js';
+import { signoffEvidenceLink } from '../signoffs/evidence-link.js';
+import { practicalEvidenceLink } from '../practicals/evidence-link.js';
 
 /** What the upload is attached to, checked against the owner; null when it fits, else the problem. */
 export type LinkCheck = (db: Executor, link: { entityId: string; ownerId: string }) => Promise<string | null>;
@@ -16,4 +18,6 @@ export const EVIDENCE_LINKS: Record<EvidenceEntity, LinkCheck> = {
     if (!found) return 'no such pre-use check';
     return found.check.personId === ownerId ? null : 'that pre-use check was recorded by someone else';
   },
+  signoff: signoffEvidenceLink,
+  practical: practicalEvidenceLink,
 };

@@ -1,8 +1,13 @@
 import { reactive, ref, shallowRef, watch } from 'vue';
 import type { Page } from '@shared/schemas/common';
-import type { TableOptions } from './usePeople';
 
 const SEARCH_DELAY_MS = 300;
+
+export interface TableOptions {
+  page: number;
+  itemsPerPage: number;
+  sortBy: readonly { key: string; order?: boolean | 'asc' | 'desc' }[];
+}
 
 /**
  * One server page of a list, kept in step with a v-data-table-server's paging and sorting and a set of

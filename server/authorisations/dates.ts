@@ -26,6 +26,12 @@ export function earliest(first: Date, ...rest: (Date | null | undefined)[]): Dat
 
 export const addDays = (at: Date, days: number) => new Date(at.getTime() + days * DAY_MS);
 
+/** Whole local days from today to the last day something is good for ("lapses at the end of 2 Mar, in 41 days"). */
+export function daysLeft(endsAt: Date, now: Date, tz: string): number {
+  const diff = Date.parse(`${lastDay(endsAt, tz)}T00:00:00Z`) - Date.parse(`${localDate(now, tz)}T00:00:00Z`);
+  return Math.max(0, Math.round(diff / DAY_MS));
+}
+
 export { endOfLocalDay, startOfLocalDay, localDate };
 
 /** "2 Mar 2027" for e-mails and PDFs, read in the site's zone. */

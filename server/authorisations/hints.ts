@@ -8,7 +8,10 @@ export function renewHints(e: ScopeEligibility, tz: string, now: Date): RenewHin
   const p = e.state.period;
   const hints: RenewHint[] = e.results.filter((r) => !r.met).map((r) => ({ label: r.label, detail: r.detail }));
   const running = p && p.endsAt > now && e.state.state !== 'revoked' && e.state.state !== 'ended';
-  if (!running) return hints;
+  if (!running) {
+    if (p && !hints.length) hints.push({ label: 'Meet the requirements again', detail: 'It is issued again once a requirement is met with fresh evidence (a renewed certificate, a new acknowledgement).' });
+    return hints;
+  }
   for (const r of e.results) {
     if (r.met && r.restsUntil && r.restsUntil.getTime() <= p.endsAt.getTime()) {
       hints.push({ label: r.label, detail: `Runs out on ${formatDay(lastDay(r.restsUntil, tz))}, which ends this authorisation too: renew it before then.` });
@@ -16,8 +19,8 @@ export function renewHints(e: ScopeEligibility, tz: string, now: Date): RenewHin
   }
   if (p.endsAt.getTime() >= p.validityEndsAt.getTime()) {
     const opens = windowStart(p, e.scope);
-    const when = opens > now ? `from ${formatDay(localDate(opens, tz))}` : 'now';
-    hints.push({ label: 'Meet the requirements again', detail: `It renews when its requirements are met again with fresh evidence (a renewed certificate, a new acknowledgement) ${when}, before ${formatDay(lastDay(p.endsAt, tz))}.` });
+    const when = opens > now ? `from ${formatDay(localDate(opens, tz))}` : 'from now';
+    hints.push({ label: 'Meet the requirements again', detail: `It renews when its requirements are met again with fresh evidence (a renewed certificate, a new acknowledgement) ${when} until ${formatDay(lastDay(p.endsAt, tz))}.` });
   }
   return hints;
 }

@@ -7,7 +7,7 @@ import type { EventRow, PeriodRow } from './periods.repository.js';
 import type { RequirementResult } from './requirements.js';
 import type { RequirementRow } from './scopes.repository.js';
 import type { DerivedState } from './states.js';
-import { DAY_MS, lastDay, localDate } from './dates.js';
+import { daysLeft, lastDay, localDate } from './dates.js';
 
 export const isPriorOrigin = (origin: string) => origin === 'prior' || origin === 'imported';
 
@@ -22,7 +22,7 @@ export function presentSummary(row: SummaryRow, s: DerivedState, now: Date): Aut
     validFrom: p ? localDate(p.startsAt, row.timeZone) : null,
     validUntil: p ? lastDay(p.endsAt, row.timeZone) : null,
     endsAt: p?.endsAt.toISOString() ?? null,
-    daysLeft: p && running ? Math.max(0, Math.ceil((p.endsAt.getTime() - now.getTime()) / DAY_MS)) : null,
+    daysLeft: p && running ? daysLeft(p.endsAt, now, row.timeZone) : null,
     recordedFromBefore: p ? isPriorOrigin(p.origin) : false,
   };
 }

@@ -9,7 +9,7 @@ import { scopesWithRequirements } from '../authorisations/scopes.repository.js';
 import { eligibilityOf } from '../authorisations/eligibility.js';
 import { renewHints } from '../authorisations/hints.js';
 import { foldState, statesAt } from '../authorisations/states.js';
-import { DAY_MS, lastDay } from '../authorisations/dates.js';
+import { daysLeft, lastDay } from '../authorisations/dates.js';
 import { authorisationMail, certificateMail, type Mail } from './messages.js';
 import type { SendRow } from './reminders.repository.js';
 
@@ -35,7 +35,7 @@ async function periodMail(db: Executor, config: Config, send: SendRow, toHolder:
   return authorisationMail({
     holderName: row.holderName, siteName: row.siteName, scopeCode: row.code, scopeTitle: row.title,
     limits: `up to ${row.maxVoltageV} V / ${row.maxCurrentA} A${row.allowsLiveWork ? ', live work' : ', dead work only'}`,
-    validUntil: lastDay(period.endsAt, row.timeZone), daysLeft: Math.max(0, Math.ceil((period.endsAt.getTime() - now.getTime()) / DAY_MS)),
+    validUntil: lastDay(period.endsAt, row.timeZone), daysLeft: daysLeft(period.endsAt, now, row.timeZone),
     state: STATE_LABELS[state.state], hints, lapseReason: events.find((e) => e.kind === 'lapsed')?.reason ?? null,
   }, send.offsetDays, toHolder, recipientName, link);
 }
@@ -51,7 +51,7 @@ async function certificateMailFor(db: Executor, config: Config, send: SendRow, t
   const link = toHolder ? `${config.publicUrl}/certificates` : `${config.publicUrl}/certificates?holderId=${holder.id}`;
   return certificateMail({
     holderName: holder.name, siteName: holder.siteName, kind: cert.kind as CertificateKind, expiresOn: cert.expiresOn,
-    daysLeft: Math.max(0, Math.ceil((cert.validUntil.getTime() - now.getTime()) / DAY_MS)),
+    daysLeft: daysLeft(cert.validUntil, now, holder.timeZone),
     restingScopes: held.map((s) => `${s.code} “${s.title}”`), liveWorkGrace: live.length ? Math.min(...live.map((s) => s.certificateGraceDays)) : null,
   }, send.offsetDays, toHolder, recipientName, link);
 }

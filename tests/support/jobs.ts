@@ -1,0 +1,105 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import request from 'supertest';
+import { afterAll } from 'vitest';
+import { loadConfig } from '../../server/config.js';
+import { createApp } from '../../server/app.js';
+import { SettableClock } from '../../server/clock.js';
+import { createDatabase, createPool } from '../../server/db/client.js';
+import { createMailer, type Mailer } from '../../server/mail/mailer.js';
+import { seedDemoIfEmpty } from '../../server/seed/index.js';
+import { createTestDatabase } from './db.js';
+import { PUBLIC_URL } from './app.js';
+
+const env = (url: string, outbox: string) => ({
+  DATABASE_URL: url, PUBLIC_URL, SESSION_SECRET: 'test-secret-'.padEnd(40, 'x'), MAIL_OUTBOX_DIR: outbox, SIGNIN_RATE_LIMIT: '1000',
+  STATIC_DIR: path.join(os.tmpdir(), 'breakover-no-static'),
+});
+
+/** A transport that fails while `failing` is set, in front of the real outbox writer. */
+export function switchableMailer(real: Mailer) {
+  const state = { failing: false, attempts: 0 };
+  const mailer: Mailer = {
+    async send(mail) {
+      state.attempts++;
+      if (state.failing) throw new Error('421 4.3.2 mail service not available, try again later');
+      return real.send(mail);
+    },
+  };
+  return Object.assign(state, { mailer });
+}
+
+/**
+ * The real app with its job queue started (no cron: the tests ask for sweeps), a settable clock and a
+ * transport the test can make fail. Like makeTestApp, one per file; cleans up after the file.
+ */
+export async function makeJobsTestApp(opts: { start?: string } = {}) {
+  const database = await createTestDatabase();
+  const outbox = mkdtempSync(path.join(os.tmpdir(), 'breakover-outbox-'));
+  const clock = new SettableClock(opts.start ?? '2026-03-02T09:00:00Z');
+  const config = loadConfig(env(database.url, outbox));
+  const mailPool = createPool(database.url, 2);
+  const transport = switchableMailer(createMailer(createDatabase(mailPool), clock, config.mail));
+  const built = createApp({ config, clock, mailer: transport.mailer, startJobs: { pollSeconds: 0.5, schedule: false } });
+  await built.jobsReady;
+  await seedDemoIfEmpty(built.deps.db, clock);
+  const children: ChildProcess[] = [];
+  afterAll(async () => {
+    await stopSecondWorkers();
+    await built.close();
+    await mailPool.end();
+    await database.drop();
+  });
+
+  /** A second server process: the same code and database, its own pg-boss and worker, its clock at `at`. */
+  async function startSecondWorker(at: Date): Promise<ChildProcess> {
+    const child = spawn(process.execPath, ['--import', 'tsx', path.resolve('tests/support/reminder-worker.ts')], {
+      env: { ...process.env, ...env(database.url, outbox), WORKER_CLOCK: at.toISOString() }, stdio: ['ignore', 'pipe', 'inherit'],
+    });
+    children.push(child);
+    await new Promise<void>((resolve, reject) => {
+      child.stdout!.on('data', (d: Buffer) => d.toString().includes('worker ready') && resolve());
+      child.once('exit', (code) => reject(new Error(`second worker exited with ${code}`)));
+    });
+    return child;
+  }
+
+  /** Waits (polling the queue, not sleeping a fixed time) until every job has finished. */
+  async function waitForJobs(ids: string[], timeoutMs = 60_000) {
+    const until = Date.now() + timeoutMs;
+    for (;;) {
+      const jobs = await Promise.all(ids.map((id) => built.jobs.job(id)));
+      if (jobs.every((j) => j && ['completed', 'failed'].includes(j.state))) return jobs.map((j) => j!);
+      if (Date.now() > until) throw new Error(`jobs not finished: ${jobs.map((j) => j?.state).join(', ')}`);
+      await new Promise((r) => setTimeout(r, 200));
+    }
+  }
+
+  async function stopSecondWorkers() {
+    for (const c of children.splice(0)) {
+      if (c.exitCode !== null) continue;
+      c.kill('SIGTERM');
+      await new Promise((r) => c.once('exit', r));
+    }
+  }
+
+  return {
+    ...built, clock, config, outbox, database, transport, startSecondWorker, stopSecondWorkers, waitForJobs,
+    agent: () => request.agent(built.app),
+    request: () => request(built.app),
+    ownerQuery: async (text: string, params: unknown[] = []) => {
+      const pg = (await import('pg')).default;
+      const c = new pg.Client({ connectionString: database.ownerUrl });
+      await c.connect();
+      try {
+        return await c.query(text, params);
+      } finally {
+        await c.end();
+      }
+    },
+    mails: () => readdirSync(outbox).filter((f) => f.endsWith('.eml')).sort().map((f) => readFileSync(path.join(outbox, f), 'utf8')),
+  };
+}
+export type JobsTestApp = Awaited<ReturnType<typeof makeJobsTestApp>>;

@@ -6,3 +6,4 @@ export * from './procedures.js';
 export * from './acknowledgements.js';
 export * from './authorisations.js';
 export * from './practicals.js';
+export * from './findings.js';

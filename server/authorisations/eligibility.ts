@@ -1,6 +1,7 @@
 import type { Executor } from '../db/client.js';
 import { certificatesOf } from './certificates.repository.js';
 import { ackFacts, type PersonRow } from './facts.repository.js';
+import { competentPracticals, countersignedSignoffs, inForceThresholds } from './records-facts.repository.js';
 import { eventsOf, latestPeriods, type EventRow, type PeriodRow } from './periods.repository.js';
 import { evaluateScope, type EvaluationFacts, type RequirementResult } from './requirements.js';
 import type { ScopeWithRequirements } from './scopes.repository.js';
@@ -15,18 +16,23 @@ export interface Standing {
 
 /** Everything the evaluators need for one person, in a handful of queries. */
 export async function loadFacts(db: Executor, person: PersonRow, scopes: ScopeWithRequirements[], now: Date) {
-  const procedureIds = [...new Set(scopes.flatMap((s) => s.requirements.filter((r) => r.kind === 'procedure_ack').map((r) => r.procedureId!)))];
-  const [certificates, acks, periods] = await Promise.all([
+  const ofKind = (kind: string) => [...new Set(scopes.flatMap((s) => s.requirements.filter((r) => r.kind === kind).map((r) => r.procedureId!)))];
+  const [practicalIds, signoffIds] = [ofKind('practicals'), ofKind('checklist_signoff')];
+  const procedureIds = [...new Set([...ofKind('procedure_ack'), ...practicalIds, ...signoffIds])];
+  const [certificates, acks, periods, practicals, signoffs, thresholds] = await Promise.all([
     certificatesOf(db, [person.id]),
     ackFacts(db, person.id, procedureIds),
     latestPeriods(db, { holderIds: [person.id] }, now),
+    competentPracticals(db, person.id, practicalIds),
+    countersignedSignoffs(db, person.id, signoffIds),
+    inForceThresholds(db, [...practicalIds, ...signoffIds]),
   ]);
   const events = await eventsOf(db, periods.map((p) => p.id));
   const standings = new Map<string, Standing>();
   for (const p of periods) standings.set(p.scopeId, { authorisationId: p.authorisationId, period: p, events: events.filter((e) => e.periodId === p.id) });
   const states = new Map<string, DerivedState>();
   for (const [scopeId, s] of standings) states.set(scopeId, foldState(s.period, s.events, now));
-  const facts: EvaluationFacts = { person, now, certificates, acks, scopes: new Map(scopes.map((s) => [s.id, s])), states };
+  const facts: EvaluationFacts = { person, now, certificates, acks, practicals, signoffs, thresholds, scopes: new Map(scopes.map((s) => [s.id, s])), states };
   return { facts, standings };
 }
 

@@ -14,7 +14,7 @@ export function renewHints(e: ScopeEligibility, tz: string, now: Date): RenewHin
   }
   for (const r of e.results) {
     if (r.met && r.restsUntil && r.restsUntil.getTime() <= p.endsAt.getTime()) {
-      hints.push({ label: r.label, detail: `Runs out on ${formatDay(lastDay(r.restsUntil, tz))}, which ends this authorisation too: renew it before then.` });
+      hints.push({ label: r.label, detail: `${r.detail} It runs out on ${formatDay(lastDay(r.restsUntil, tz))}, which ends this authorisation too: renew it before then.` });
     }
   }
   if (p.endsAt.getTime() >= p.validityEndsAt.getTime()) {

@@ -1,14 +1,17 @@
 import type { AcceptedRequirementKind, RequirementKind } from '../../shared/authorisations/kinds.js';
 import type { CertificateRow } from './certificates.repository.js';
 import type { AckFact, PersonRow } from './facts.repository.js';
+import type { RecordFact } from './records-facts.repository.js';
 import type { RequirementRow, ScopeWithRequirements } from './scopes.repository.js';
 import type { DerivedState } from './states.js';
 import { evaluateCertificate } from './requirement-certificate.js';
 import { evaluatePrerequisite } from './requirement-prerequisite.js';
 import { evaluateProcedureAck } from './requirement-procedure.js';
+import { evaluatePracticals } from './requirement-practicals.js';
+import { evaluateSignoff } from './requirement-signoff.js';
 
 export interface EvidenceItem {
-  type: 'certificate' | 'authorisation' | 'acknowledgement';
+  type: 'certificate' | 'authorisation' | 'acknowledgement' | 'practical' | 'signoff';
   id: string;
   label: string;
   at: Date;
@@ -35,6 +38,10 @@ export interface EvaluationFacts {
   now: Date;
   certificates: CertificateRow[];
   acks: Map<string, AckFact>;
+  practicals: RecordFact[];
+  signoffs: RecordFact[];
+  /** Per procedure, the version in force and from which numbers sign-offs and practicals count. */
+  thresholds: Map<string, { number: number; ackFrom: number; assessFrom: number }>;
   scopes: Map<string, ScopeWithRequirements>;
   /** The person's state per scope id, as decided so far in this evaluation. */
   states: Map<string, DerivedState>;
@@ -42,11 +49,13 @@ export interface EvaluationFacts {
 
 export type Evaluator = (req: RequirementRow, facts: EvaluationFacts) => RequirementResult;
 
-/** One evaluator per kind a scope may list; sign-offs and practicals join when their records exist. */
+/** One evaluator per kind a scope may list. */
 export const EVALUATORS: Record<AcceptedRequirementKind, Evaluator> = {
   certificate: evaluateCertificate,
   prerequisite: evaluatePrerequisite,
   procedure_ack: evaluateProcedureAck,
+  practicals: evaluatePracticals,
+  checklist_signoff: evaluateSignoff,
 };
 
 export function evaluateRequirement(req: RequirementRow, facts: EvaluationFacts): RequirementResult {

@@ -52,8 +52,8 @@ export async function procedureNames(db: Executor, ids: string[]) {
   return new Map(rows.map((r) => [r.id, { code: r.code, title: r.title }]));
 }
 
-export async function countProcedures(db: Executor, ids: string[]) {
-  if (!ids.length) return 0;
+export async function existingProcedures(db: Executor, ids: string[]): Promise<Set<string>> {
+  if (!ids.length) return new Set();
   const rows = await db.select({ id: procedures.id }).from(procedures).where(inArray(procedures.id, ids));
-  return rows.length;
+  return new Set(rows.map((r) => r.id));
 }

@@ -1,13 +1,12 @@
 import type { Deps } from '../deps.js';
 import type { Actor } from '../../shared/abilities.js';
-import { CERTIFICATE_KIND_LABELS, PENDING_REQUIREMENT_KINDS, REQUIREMENT_KIND_LABELS, type CertificateKind } from '../../shared/authorisations/kinds.js';
+import { CERTIFICATE_KIND_LABELS, REQUIREMENT_KIND_LABELS, type CertificateKind } from '../../shared/authorisations/kinds.js';
 import type { RequirementBody, ScopeBody } from '../../shared/schemas/authorisations.js';
 import type { ScopeView } from '../../shared/authorisations/views.js';
 import { conflict, notFound, unprocessable } from '../errors.js';
 import * as repo from './scopes.repository.js';
 import { presentRequirement } from './present.js';
 
-type Accepted = Exclude<RequirementBody, { kind: (typeof PENDING_REQUIREMENT_KINDS)[number] }>;
 
 export function makeScopesService({ db, clock, audit }: Deps) {
   async function views(rows: repo.ScopeWithRequirements[], all?: repo.ScopeWithRequirements[]): Promise<ScopeView[]> {
@@ -16,10 +15,11 @@ export function makeScopesService({ db, clock, audit }: Deps) {
     const label = (r: repo.RequirementRow) => {
       if (r.kind === 'prerequisite') return `Holds “${titles.get(r.prerequisiteScopeId!) ?? 'another scope'}”`;
       if (r.kind === 'certificate') return `Current ${CERTIFICATE_KIND_LABELS[r.certificateKind as CertificateKind] ?? r.certificateKind} certificate`;
-      if (r.kind === 'procedure_ack') {
-        const p = procs.get(r.procedureId!);
-        return p ? `Acknowledged ${p.code} “${p.title}” (version in force)` : 'Acknowledged a procedure (version in force)';
-      }
+      const p = r.procedureId ? procs.get(r.procedureId) : undefined;
+      const proc = p ? `${p.code} “${p.title}”` : 'a procedure';
+      if (r.kind === 'procedure_ack') return `Acknowledged ${proc} (version in force)`;
+      if (r.kind === 'checklist_signoff') return `Self sign-off of ${proc} countersigned`;
+      if (r.kind === 'practicals') return `${r.practicalsCount} competent supervised practical${r.practicalsCount === 1 ? '' : 's'} on ${proc} within ${r.practicalsWindowMonths} months`;
       return REQUIREMENT_KIND_LABELS[r.kind as keyof typeof REQUIREMENT_KIND_LABELS] ?? r.kind;
     };
     return rows.map(({ requirements, createdBy: _c, createdAt: _a, updatedAt: _u, ...s }) => ({ ...s, requirements: requirements.map((r) => presentRequirement(r, label(r))) }));
@@ -36,41 +36,38 @@ export function makeScopesService({ db, clock, audit }: Deps) {
     return (await views([row]))[0];
   }
 
-  /** Refuses kinds not recorded yet, unknown references, repeats and prerequisite loops, naming the requirement. */
-  async function checkRequirements(scopeId: string | null, reqs: RequirementBody[]): Promise<Accepted[]> {
+  /** Refuses unknown references, repeats and prerequisite loops, naming the requirement. */
+  async function checkRequirements(scopeId: string | null, reqs: RequirementBody[]): Promise<RequirementBody[]> {
     const all = await repo.scopesWithRequirements(db);
     const seen = new Set<string>();
-    reqs.forEach((r, i) => {
+    reqs.forEach((a, i) => {
       const at = `requirements.${i}`;
-      if ((PENDING_REQUIREMENT_KINDS as readonly string[]).includes(r.kind)) {
-        throw unprocessable(`${at}.kind: ${REQUIREMENT_KIND_LABELS[r.kind].toLowerCase()} cannot be required yet: the portal does not record them yet`, { [`${at}.kind`]: 'not recorded by the portal yet' });
-      }
-      const a = r as Accepted;
-      const key = a.kind === 'prerequisite' ? `p:${a.scopeId}` : a.kind === 'certificate' ? `c:${a.certificateKind}` : `a:${a.procedureId}`;
+      const key = a.kind === 'prerequisite' ? `p:${a.scopeId}` : a.kind === 'certificate' ? `c:${a.certificateKind}` : `${a.kind}:${a.procedureId}`;
       if (seen.has(key)) throw unprocessable(`${at}: listed twice`, { [at]: 'listed twice' });
       seen.add(key);
       if (a.kind === 'prerequisite' && !all.some((s) => s.id === a.scopeId)) throw unprocessable(`${at}.scopeId: no such scope`, { [`${at}.scopeId`]: 'no such scope' });
       if (a.kind === 'prerequisite' && a.scopeId === scopeId) throw unprocessable(`${at}.scopeId: a scope cannot rest on itself`, { [`${at}.scopeId`]: 'a scope cannot rest on itself' });
     });
-    const accepted = reqs as Accepted[];
+    const accepted = reqs;
     if (!accepted.some((r) => r.kind !== 'prerequisite')) {
       throw unprocessable('requirements: list at least one requirement besides other scopes (a certificate or a procedure)', { requirements: 'list at least one requirement besides other scopes' });
     }
-    const procIds = [...new Set(accepted.flatMap((r) => (r.kind === 'procedure_ack' ? [r.procedureId] : [])))];
-    if ((await repo.countProcedures(db, procIds)) !== procIds.length) {
-      const i = accepted.findIndex((r) => r.kind === 'procedure_ack');
-      throw unprocessable(`requirements.${i}.procedureId: no such procedure`, { [`requirements.${i}.procedureId`]: 'no such procedure' });
-    }
+    const procIds = [...new Set(accepted.flatMap((r) => ('procedureId' in r ? [r.procedureId] : [])))];
+    const known = await repo.existingProcedures(db, procIds);
+    const i = accepted.findIndex((r) => 'procedureId' in r && !known.has(r.procedureId));
+    if (i >= 0) throw unprocessable(`requirements.${i}.procedureId: no such procedure`, { [`requirements.${i}.procedureId`]: 'no such procedure' });
     if (scopeId && loops(scopeId, accepted, all)) throw unprocessable('requirements: these prerequisites would make a loop back to this scope', { requirements: 'prerequisites would loop back to this scope' });
     return accepted;
   }
 
-  function rows(reqs: Accepted[]) {
+  function rows(reqs: RequirementBody[]) {
     return reqs.map((r) => ({
       kind: r.kind,
-      procedureId: r.kind === 'procedure_ack' ? r.procedureId : null,
+      procedureId: 'procedureId' in r ? r.procedureId : null,
       prerequisiteScopeId: r.kind === 'prerequisite' ? r.scopeId : null,
       certificateKind: r.kind === 'certificate' ? r.certificateKind : null,
+      practicalsCount: r.kind === 'practicals' ? r.count : null,
+      practicalsWindowMonths: r.kind === 'practicals' ? r.windowMonths : null,
     }));
   }
 
@@ -107,7 +104,7 @@ export function makeScopesService({ db, clock, audit }: Deps) {
 }
 
 /** True when following prerequisites from the new list leads back to the scope being saved. */
-function loops(scopeId: string, reqs: Accepted[], all: repo.ScopeWithRequirements[]): boolean {
+function loops(scopeId: string, reqs: RequirementBody[], all: repo.ScopeWithRequirements[]): boolean {
   const byId = new Map(all.map((s) => [s.id, s]));
   const stack = reqs.flatMap((r) => (r.kind === 'prerequisite' ? [r.scopeId] : []));
   const seen = new Set<string>();

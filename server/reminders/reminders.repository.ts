@@ -51,6 +51,24 @@ export function rereadCandidates(db: Executor, now: Date, limit: number) {
     limit ${limit}`);
 }
 
+/**
+ * A safety net for flows that record an acknowledgement without re-deciding in their own transaction:
+ * people who acknowledged, in the last two days, a procedure a scope rests on, and who do not hold that
+ * scope at its full validity now.
+ */
+export function acknowledgementCandidates(db: Executor, now: Date, limit: number) {
+  const t = now.toISOString();
+  return ids(db, sql`
+    select distinct a.user_id as holder_id from procedure_acknowledgements a
+    join scope_requirements q on q.procedure_id = a.procedure_id and q.kind = 'procedure_ack'
+    join scopes s on s.id = q.scope_id and s.active
+    join users u on u.id = a.user_id and u.active
+    where a.acknowledged_at > ${t}::timestamptz - interval '2 days' and a.acknowledged_at <= ${t}::timestamptz
+      and not exists (select 1 from authorisation_periods p where p.holder_id = a.user_id and p.scope_id = s.id
+        and p.during @> ${t}::timestamptz and p.ends_at = p.validity_ends_at)
+    limit ${limit}`);
+}
+
 // The holder and the active managers of the holder's site (their own site or one they cover).
 const recipients = (holder: SQL) => sql`
   select ${holder}.id as id, 'holder'::text as role where ${holder}.active

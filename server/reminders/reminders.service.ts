@@ -31,6 +31,7 @@ export function makeReminders(deps: Deps) {
       ...(await repo.lapseCandidates(db, now, 2000)),
       ...(await repo.graceCandidates(db, now, 2000)),
       ...(await repo.rereadCandidates(db, now, 2000)),
+      ...(await repo.acknowledgementCandidates(db, now, 2000)),
     ]);
     for (const id of people) await db.transaction((tx) => reevaluatePerson(tx, id, { ...deps, actorId: null }));
     return people.size;

@@ -3,10 +3,9 @@
 export const REQUIREMENT_KINDS = ['procedure_ack', 'checklist_signoff', 'practicals', 'prerequisite', 'certificate'] as const;
 export type RequirementKind = (typeof REQUIREMENT_KINDS)[number];
 
-/** Kinds a scope may list today; the others wait for the records they rest on (sign-offs, practicals). */
-export const ACCEPTED_REQUIREMENT_KINDS = ['procedure_ack', 'prerequisite', 'certificate'] as const satisfies readonly RequirementKind[];
-export type AcceptedRequirementKind = (typeof ACCEPTED_REQUIREMENT_KINDS)[number];
-export const PENDING_REQUIREMENT_KINDS = ['checklist_signoff', 'practicals'] as const satisfies readonly RequirementKind[];
+/** Kinds a scope may list: every kind has an evaluator over the records it rests on. */
+export const ACCEPTED_REQUIREMENT_KINDS = REQUIREMENT_KINDS;
+export type AcceptedRequirementKind = RequirementKind;
 
 export const REQUIREMENT_KIND_LABELS: Record<RequirementKind, string> = {
   procedure_ack: 'Procedure acknowledged (version in force)',

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { isoDate, pageQuery } from './common.js';
-import { CERTIFICATE_KINDS, PENDING_REQUIREMENT_KINDS } from '../authorisations/kinds.js';
+import { CERTIFICATE_KINDS } from '../authorisations/kinds.js';
 
 const password = z.string().min(1, 're-enter your password to sign').max(1024, 'password is too long');
 const reason = z.string().trim().min(3, 'give a reason').max(500, 'use at most 500 characters');
@@ -9,9 +9,13 @@ export const requirementBody = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('procedure_ack'), procedureId: z.uuid({ message: 'choose a procedure' }) }).strict(),
   z.object({ kind: z.literal('prerequisite'), scopeId: z.uuid({ message: 'choose the scope it rests on' }) }).strict(),
   z.object({ kind: z.literal('certificate'), certificateKind: z.enum(CERTIFICATE_KINDS, { message: 'choose a kind of certificate' }) }).strict(),
-  // Named so the server can say why it refuses them (422) instead of a bare "invalid kind".
-  z.object({ kind: z.enum(PENDING_REQUIREMENT_KINDS) }).passthrough(),
-], { message: 'kind: use procedure_ack, prerequisite or certificate' });
+  z.object({ kind: z.literal('checklist_signoff'), procedureId: z.uuid({ message: 'choose a procedure' }) }).strict(),
+  z.object({
+    kind: z.literal('practicals'), procedureId: z.uuid({ message: 'choose a procedure' }),
+    count: z.number().int('a whole number').min(1, 'at least 1').max(10, 'at most 10'),
+    windowMonths: z.number().int('whole months').min(1, 'at least 1 month').max(60, 'at most 60 months'),
+  }).strict(),
+], { message: 'kind: use procedure_ack, checklist_signoff, practicals, prerequisite or certificate' });
 
 export const scopeBody = z.object({
   code: z.string().trim().toUpperCase().regex(/^[A-Z0-9][A-Z0-9-]{1,23}$/, 'use 2–24 capital letters, digits or hyphens'),

@@ -118,7 +118,7 @@ describe('expiry', () => {
     await verifyCertificate(manager, await submitCertificate(tech, { issuedOn: '2025-09-30', expiresOn: '2026-09-30' }), DEMO_PASSWORD);
     const mine = await mineFor(tech, scope.id);
     expect(mine?.validUntil, 'first aid expires first').toBe('2026-09-30');
-    expect(mine?.renew.map((h) => h.detail).join(' ')).toMatch(/Runs out on 30 Sept? 2026/);
+    expect(mine?.renew.map((h) => h.detail).join(' ')).toMatch(/It runs out on 30 Sept? 2026/);
     await verifyCertificate(manager, await submitCertificate(tech, { issuedOn: '2026-03-01', expiresOn: '2028-03-01' }), DEMO_PASSWORD);
     expect((await mineFor(tech, scope.id))?.validUntil, '12 months from issue on 2 March 2026').toBe('2027-03-02');
   });

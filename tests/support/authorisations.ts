@@ -5,6 +5,7 @@ import { listSites } from '../../server/sites/sites.repository.js';
 import type { Role } from '../../shared/roles.js';
 import type { ScopeInput } from '../../shared/schemas/authorisations.js';
 import { signIn } from './people.js';
+import type { MineItem } from '../../shared/authorisations/views.js';
 
 export const PERSON_PASSWORD = 'bench-person-for-authorisation-tests';
 let counter = 0;
@@ -52,7 +53,7 @@ export async function verifyCertificate(manager: ReturnType<TestApp['agent']>, i
 /** The holder's authorisation for one scope, as "What I may do" shows it. */
 export async function mineFor(holder: Person, scopeId: string) {
   const res = await holder.get('/api/authorisations/mine');
-  return (res.body.items as { id: string; scope: { id: string }; state: string; validUntil: string; periodId: string; renew: { label: string; detail: string }[] }[]).find((i) => i.scope.id === scopeId);
+  return (res.body.items as MineItem[]).find((i) => i.scope.id === scopeId);
 }
 
 export const DAY = 86_400_000;

@@ -9,7 +9,7 @@ import { findUserById } from '../people/people.repository.js';
 import { findSite } from '../sites/sites.repository.js';
 import { insertSignature } from '../signatures/signatures.repository.js';
 import { replaceContent } from '../procedures/content.repository.js';
-import { insertProcedure, insertVersion, updateVersion, type VersionRow } from '../procedures/procedures.repository.js';
+import { insertProcedure, insertVersion, touchProcedure, updateVersion, type VersionRow } from '../procedures/procedures.repository.js';
 import { insertAcknowledgement, insertRequests } from '../procedures/acknowledgements.repository.js';
 import type { SeedProcedure, SeedVersion } from './procedures/types.js';
 import { isolation } from './procedures/isolation.js';
@@ -55,6 +55,9 @@ export const seedProcedures: SeedStep = async (tx, clock, audit, ctx) => {
         ackFromNumber: asks ? i + 1 : (previous?.ackFromNumber ?? i + 1), assessFromNumber: v.change?.changeClass === 're-assess' ? i + 1 : (previous?.assessFromNumber ?? 1),
       }));
     }
+    // The last change is the newest version's, not the moment the demo was seeded.
+    const last = p.versions.some((v) => v.publishedDaysAgo === undefined) ? now : published.at(-1)!.publishedAt!;
+    await touchProcedure(tx, proc.id, last, authorId);
     await seedAcknowledgements(tx, p, published, ctx.people, tz);
   }
 };

@@ -1,6 +1,7 @@
 import { mdiAccountCircleOutline, mdiAccountGroupOutline, mdiEmailFastOutline, mdiHomeOutline } from '@mdi/js';
 import { mdiSineWave } from '@mdi/js';
 import { mdiSolderingIron, mdiMeterElectricOutline } from '@mdi/js';
+import { mdiClipboardTextOutline } from '@mdi/js';
 import type { Action, SubjectName } from '@shared/abilities';
 
 export interface NavItem {
@@ -24,5 +25,6 @@ export const navItems: NavItem[] = [
   { title: 'Benches', description: 'Bench set-up, inspection dates and signed pre-use checks.', icon: mdiSolderingIron, to: 'benches', can: ['read', 'Bench'] },
   { title: 'Test instruments', description: 'Measurement category, voltage rating and calibration of the instruments in use.', icon: mdiMeterElectricOutline, to: 'instruments', can: ['read', 'Instrument'] },
   { title: 'Bench calculator', description: 'Firing angle, power, waveforms and device temperature for a phase-control circuit; published test limits.', icon: mdiSineWave, to: 'calculator' },
+  { title: 'Procedures', description: 'Bench-safety procedures under document control: versions, hold points, checklists and who has acknowledged them.', icon: mdiClipboardTextOutline, to: 'procedures', can: ['read', 'Procedure'] },
   { title: 'Your account', description: 'Your details, roles and sites, and your password.', icon: mdiAccountCircleOutline, to: 'profile' },
 ];

@@ -26,5 +26,10 @@ export const routes: RouteRecordRaw[] = [
   { path: '/benches', name: 'benches', component: () => import('@/views/BenchesView.vue'), meta: { title: 'Benches', can: ['read', 'Bench'] } },
   { path: '/instruments', name: 'instruments', component: () => import('@/views/InstrumentsView.vue'), meta: { title: 'Test instruments', can: ['read', 'Instrument'] } },
   { path: '/calculator', name: 'calculator', component: () => import('@/views/CalculatorView.vue'), meta: { title: 'Bench calculator' } },
+  { path: '/procedures', name: 'procedures', component: () => import('@/views/ProceduresView.vue'), meta: { title: 'Procedures', can: ['read', 'Procedure'] } },
+  { path: '/procedures/:id', name: 'procedure', component: () => import('@/views/ProcedureView.vue'), meta: { title: 'Procedure history', can: ['read', 'Procedure'] } },
+  { path: '/procedures/:id/compare', name: 'procedure-compare', component: () => import('@/views/ProcedureCompareView.vue'), meta: { title: 'Compare versions', can: ['read', 'Procedure'] } },
+  { path: '/procedures/:id/versions/:versionId', name: 'procedure-version', component: () => import('@/views/ProcedureVersionView.vue'), meta: { title: 'Procedure', can: ['read', 'Procedure'] } },
+  { path: '/procedures/:id/versions/:versionId/edit', name: 'procedure-edit', component: () => import('@/views/ProcedureEditView.vue'), meta: { title: 'Edit a procedure', can: ['update', 'Procedure'] } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { title: 'Page not found' } },
 ];

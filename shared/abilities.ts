@@ -3,9 +3,10 @@ import type { Role } from './roles.js';
 import { procedureRules } from './procedures/abilities.js';
 import { authorisationRules } from './authorisations/abilities.js';
 import { recordRules } from './practicals/abilities.js';
+import { registerRules } from './register/abilities.js';
 
 export type Action = 'manage' | 'create' | 'read' | 'update' | 'delete' | 'invite' | 'assignRole' | 'approve';
-export type SubjectName = 'User' | 'Site' | 'MailLog' | 'AuditLog' | 'Bench' | 'BenchCheck' | 'Instrument' | 'Evidence' | 'Procedure' | 'Acknowledgement' | 'ReviewReminder' | 'Scope' | 'Authorisation' | 'Certificate' | 'Reminder' | 'Signoff' | 'Practical' | 'all';
+export type SubjectName = 'User' | 'Site' | 'MailLog' | 'AuditLog' | 'Bench' | 'BenchCheck' | 'Instrument' | 'Evidence' | 'Procedure' | 'Acknowledgement' | 'ReviewReminder' | 'Scope' | 'Authorisation' | 'Certificate' | 'Reminder' | 'Signoff' | 'Practical' | 'Register' | 'Overview' | 'PersonRecord' | 'Finding' | 'all';
 export type Subject = SubjectName | (ForcedSubject<Exclude<SubjectName, 'all'>> & Record<string, any>);
 // Conditions are plain Mongo-style queries over a record's own fields (id, siteId, userId, …).
 export type AppAbility = MongoAbility<[Action, Subject], MongoQuery<Record<string, any>>>;
@@ -52,6 +53,7 @@ export function defineAbilityFor(actor: Actor | null): AppAbility {
   procedureRules({ can, cannot }, actor, has);
   authorisationRules({ can, cannot }, actor, has);
   recordRules({ can, cannot }, actor, has);
+  registerRules({ can, cannot }, actor, has);
   if (has('auditor')) {
     // Auditors read everything and write nothing.
     can('read', 'all');

@@ -1,0 +1,60 @@
+import type { Deps } from '../deps.js';
+import type { AppAbility } from '../../shared/abilities.js';
+import { CERTIFICATE_KIND_LABELS, type CertificateKind } from '../../shared/authorisations/kinds.js';
+import type { RowEvidenceView } from '../../shared/register/views.js';
+import { accessibleWhere } from '../authz/casl-sql.js';
+import { certificatesOf } from '../authorisations/certificates.repository.js';
+import type { PersonRow } from '../authorisations/facts.repository.js';
+import { registerAccessColumns, registerRows } from '../register/register.repository.js';
+import { filesOf } from '../register/evidence.repository.js';
+import type { makeRowEvidence } from '../register/register.evidence.js';
+import { acknowledgementsBy, practicalsBy, versionsInForceAt } from './incident.repository.js';
+import { benchThen, instrumentsThen } from './equipment.then.js';
+import type { IncidentPack, PackFile } from './incident.types.js';
+
+type Parts = Omit<IncidentPack, 'producedAt' | 'producedBy' | 'note' | 'person'>;
+
+/** Gathers what stood at the moment for one person (and a bench): nothing later, nothing of today's versions. */
+export async function gatherPack(deps: Deps, rows: ReturnType<typeof makeRowEvidence>, ability: AppAbility, person: PersonRow, at: Date, benchId?: string): Promise<Parts> {
+  const { db } = deps;
+  const access = accessibleWhere(ability, 'read', 'Register', registerAccessColumns);
+  const held = await registerRows(db, { access, moment: { at, known: false }, personId: person.id }, 'scope', 'asc', 500);
+  const authorisations: RowEvidenceView[] = [];
+  for (const r of held) authorisations.push(await rows.evidenceOf(ability, r.authorisationId, { at: at.toISOString(), view: 'effective' }));
+
+  const [versions, acks, practicalRows, certs] = await Promise.all([versionsInForceAt(db, at), acknowledgementsBy(db, person.id, at), practicalsBy(db, person.id, at), certificatesOf(db, [person.id])]);
+  const procedures = versions.map((v) => {
+    const ack = acks.find((a) => a.procedureId === v.procedureId);
+    return {
+      code: v.code, number: v.number, title: v.title, publishedAt: v.publishedAt!,
+      acknowledged: ack ? { number: ack.versionNumber, at: ack.acknowledgedAt, printedName: ack.printedName, counts: ack.versionNumber >= (v.ackFromNumber ?? v.number) } : null,
+    };
+  });
+
+  const restedOn = new Set(authorisations.flatMap((a) => a.basis.flatMap((b) => b.evidence.filter((e) => e.type === 'practical').map((e) => e.id))));
+  const shownCerts = certs.filter((c) => c.submittedAt <= at);
+  const recordFiles = await filesOf(db, [...practicalRows.map((p) => ({ type: 'practical', id: p.practical.id })), ...shownCerts.map((c) => ({ type: 'certificate', id: c.id }))], at);
+  const filesFor = (type: string, id: string) => recordFiles.filter((f) => f.entity === type && f.entityId === id);
+
+  const bench = benchId ? await benchThen(db, benchId, at) : null;
+  const usedInstruments = [...new Set(practicalRows.flatMap((p) => p.practical.instrumentIds))];
+  const instruments = await instrumentsThen(db, bench?.siteId ?? null, usedInstruments, at, bench?.timeZone ?? person.timeZone);
+
+  const files: PackFile[] = [...recordFiles, ...(bench?.latestCheck?.files ?? [])];
+  for (const a of authorisations) for (const b of a.basis) for (const e of b.evidence) for (const f of e.files) files.push({ ...f, entity: e.type, entityId: e.id });
+  return {
+    at, authorisations, procedures, bench, instruments,
+    practicals: practicalRows.map(({ practical: p, assessorName }) => ({
+      id: p.id, heldAt: p.heldAt, assessorName, restedOn: restedOn.has(p.id), files: filesFor('practical', p.id),
+      outcome: p.assessedAt && p.assessedAt <= at ? (p.outcome === 'competent' ? 'Competent' : 'Not yet competent') : 'Not yet assessed at that moment',
+    })),
+    certificates: shownCerts.map((c) => ({
+      id: c.id, kind: CERTIFICATE_KIND_LABELS[c.kind as CertificateKind] ?? c.kind, issuer: c.issuer, reference: c.reference, issuedOn: c.issuedOn, expiresOn: c.expiresOn,
+      files: filesFor('certificate', c.id),
+      stateThen: c.reviewedAt && c.reviewedAt <= at ? (c.status === 'verified' ? (c.validUntil > at ? 'Checked and current' : 'Checked, expired by then') : 'Rejected') : 'Uploaded, not yet checked',
+    })),
+    files: dedupe(files),
+  };
+}
+
+const dedupe = (files: PackFile[]) => [...new Map(files.map((f) => [`${f.entity}/${f.entityId}/${f.id}`, f])).values()];

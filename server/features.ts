@@ -26,6 +26,7 @@ import { authorisationRoutes } from './authorisations/authorisations.routes.js';
 import { makeReminders } from './reminders/reminders.service.js';
 import { reminderRoutes } from './reminders/reminders.routes.js';
 import { makeJobs } from './jobs/index.js';
+import { makeRegisterFeature, registerFeatureRoutes } from './register/index.js';
 
 /** Every feature's services, built once per app. */
 export function buildServices(deps: Deps) {
@@ -42,7 +43,8 @@ export function buildServices(deps: Deps) {
   const jobs = makeJobs(deps, reminders);
   const signoffs = makeSignoffsFeature(deps, signatures, usability);
   const practicals = makePracticalsFeature(deps, signatures, usability);
-  return { auth, people, sites, signatures, engine: makeEngineService(), ...equipment, evidence, procedures, authorisations, reminders, jobs, signoffs, practicals };
+  const register = makeRegisterFeature(deps, { people, authorisations });
+  return { auth, people, sites, signatures, engine: makeEngineService(), ...equipment, evidence, procedures, authorisations, reminders, jobs, signoffs, practicals, register };
 }
 export type Services = ReturnType<typeof buildServices>;
 
@@ -63,5 +65,6 @@ export function buildRouteTable(deps: Deps, s: Services): RouteDef[] {
     ...practicalRoutes(s.practicals),
     ...authorisationRoutes(s.authorisations),
     ...reminderRoutes(s.reminders, s.jobs),
+    ...registerFeatureRoutes(s.register),
   ];
 }

@@ -1,9 +1,8 @@
-import { and, eq, inArray, sql, type SQL } from 'drizzle-orm';
+import { and, eq, sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../db/client.js';
 import { procedureAcknowledgements, procedureRereadRequests, sites, userRoles, users } from '../db/schema/index.js';
 
 export type AckInsert = typeof procedureAcknowledgements.$inferInsert;
-export type RequestRow = typeof procedureRereadRequests.$inferSelect;
 
 export async function insertAcknowledgement(db: Executor, row: AckInsert) {
   const [created] = await db.insert(procedureAcknowledgements).values(row).returning();
@@ -16,11 +15,6 @@ export async function findAcknowledgement(db: Executor, versionId: string, userI
     .from(procedureAcknowledgements)
     .where(and(eq(procedureAcknowledgements.versionId, versionId), eq(procedureAcknowledgements.userId, userId)));
   return row;
-}
-
-export async function acknowledgementsOf(db: Executor, versionIds: string[]) {
-  if (!versionIds.length) return [];
-  return db.select().from(procedureAcknowledgements).where(inArray(procedureAcknowledgements.versionId, versionIds));
 }
 
 /**

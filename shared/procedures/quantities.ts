@@ -1,6 +1,5 @@
 // What a checklist measurement can be compared against when the engine computes the expected value
 // from a practical's bench set-up (supply, load, trigger network). The practical supplies the figures.
-import type { ResistiveResult } from '../engine/resistive.js';
 
 export const COMPUTED_QUANTITY_IDS = [
   'firing-angle', 'conduction-angle', 'delay-time', 'output-rms-voltage', 'load-rms-current', 'load-power',
@@ -15,21 +14,3 @@ export const COMPUTED_QUANTITIES: Record<ComputedQuantity, { label: string; unit
   'load-rms-current': { label: 'RMS load current', unit: 'A', note: 'Output RMS voltage over the load resistance.' },
   'load-power': { label: 'Load power', unit: 'W', note: 'Output RMS voltage squared over the load resistance.' },
 };
-
-/** Picks one quantity out of the engine's figures for a resistive load fired at the expected angle. */
-export function readQuantity(quantity: ComputedQuantity, figures: ResistiveResult): number {
-  switch (quantity) {
-    case 'firing-angle':
-      return figures.alphaDeg;
-    case 'conduction-angle':
-      return figures.conductionAngleDeg;
-    case 'delay-time':
-      return figures.delayTimeS * 1000;
-    case 'output-rms-voltage':
-      return figures.outputVrms;
-    case 'load-rms-current':
-      return figures.loadCurrentRmsA;
-    case 'load-power':
-      return figures.outputPowerW;
-  }
-}

@@ -57,3 +57,9 @@ export async function existingProcedures(db: Executor, ids: string[]): Promise<S
   const rows = await db.select({ id: procedures.id }).from(procedures).where(inArray(procedures.id, ids));
   return new Set(rows.map((r) => r.id));
 }
+
+export async function procedureIdsByCode(db: Executor, codes: string[]): Promise<Map<string, string>> {
+  if (!codes.length) return new Map();
+  const rows = await db.select({ id: procedures.id, code: procedures.code }).from(procedures).where(inArray(procedures.code, codes));
+  return new Map(rows.map((r) => [r.code, r.id]));
+}

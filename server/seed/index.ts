@@ -5,6 +5,7 @@ import { users } from '../db/schema/index.js';
 import { makeAudit } from '../audit/audit.service.js';
 import { seedPeople } from './seed-people.js';
 import { seedBenches } from './seed-benches.js';
+import { seedAuthorisations } from './seed-authorisations.js';
 import { seedProcedures } from './seed-procedures.js';
 
 /**
@@ -25,4 +26,4 @@ export async function seedDemoIfEmpty(db: Database, clock: Clock): Promise<boole
 export type SeedContext = Awaited<ReturnType<typeof seedPeople>>;
 export type SeedStep = (tx: Parameters<Parameters<Database['transaction']>[0]>[0], clock: Clock, audit: ReturnType<typeof makeAudit>, ctx: SeedContext) => Promise<void>;
 
-const SEED_STEPS: SeedStep[] = [seedBenches, seedProcedures];
+const SEED_STEPS: SeedStep[] = [seedBenches, seedProcedures, seedAuthorisations];

@@ -2,6 +2,7 @@ import { mdiAccountCircleOutline, mdiAccountGroupOutline, mdiEmailFastOutline, m
 import { mdiSineWave } from '@mdi/js';
 import { mdiSolderingIron, mdiMeterElectricOutline } from '@mdi/js';
 import { mdiClipboardTextOutline } from '@mdi/js';
+import { mdiBookAccountOutline, mdiChartBar, mdiClipboardListOutline, mdiFlagOutline, mdiLinkVariant, mdiPackageDown } from '@mdi/js';
 import type { Action, SubjectName } from '@shared/abilities';
 
 export interface NavItem {
@@ -26,5 +27,11 @@ export const navItems: NavItem[] = [
   { title: 'Test instruments', description: 'Measurement category, voltage rating and calibration of the instruments in use.', icon: mdiMeterElectricOutline, to: 'instruments', can: ['read', 'Instrument'] },
   { title: 'Bench calculator', description: 'Firing angle, power, waveforms and device temperature for a phase-control circuit; published test limits.', icon: mdiSineWave, to: 'calculator' },
   { title: 'Procedures', description: 'Bench-safety procedures under document control: versions, hold points, checklists and who has acknowledged them.', icon: mdiClipboardTextOutline, to: 'procedures', can: ['read', 'Procedure'] },
+  { title: 'Register', description: 'Who holds which scope now, or at any past moment; the evidence behind each row; CSV and PDF.', icon: mdiClipboardListOutline, to: 'register', can: ['read', 'Register'] },
+  { title: 'Overview', description: 'Counts by state per site and scope, what ends in the next 30, 60 and 90 days, overdue re-reads.', icon: mdiChartBar, to: 'overview', can: ['read', 'Overview'] },
+  { title: 'Incident pack', description: 'Freeze what stood at one moment for one person and bench, as a PDF with its evidence files.', icon: mdiPackageDown, to: 'incident-pack', can: ['read', 'Register'] },
+  { title: 'Findings', description: 'What auditors found, and the answers and closures from the sites.', icon: mdiFlagOutline, to: 'findings', can: ['read', 'Finding'] },
+  { title: 'Audit trail', description: 'Every change with who, when and the values before and after; verify the chain.', icon: mdiLinkVariant, to: 'audit-trail', can: ['read', 'AuditLog'] },
+  { title: 'Your record', description: 'Everything on record about you: roles, acknowledgements, sign-offs, practicals, certificates and authorisations.', icon: mdiBookAccountOutline, to: 'my-record', can: ['read', 'PersonRecord'] },
   { title: 'Your account', description: 'Your details, roles and sites, and your password.', icon: mdiAccountCircleOutline, to: 'profile' },
 ];

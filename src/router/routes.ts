@@ -31,5 +31,13 @@ export const routes: RouteRecordRaw[] = [
   { path: '/procedures/:id/compare', name: 'procedure-compare', component: () => import('@/views/ProcedureCompareView.vue'), meta: { title: 'Compare versions', can: ['read', 'Procedure'] } },
   { path: '/procedures/:id/versions/:versionId', name: 'procedure-version', component: () => import('@/views/ProcedureVersionView.vue'), meta: { title: 'Procedure', can: ['read', 'Procedure'] } },
   { path: '/procedures/:id/versions/:versionId/edit', name: 'procedure-edit', component: () => import('@/views/ProcedureEditView.vue'), meta: { title: 'Edit a procedure', can: ['update', 'Procedure'] } },
+  { path: '/register', name: 'register', component: () => import('@/views/RegisterView.vue'), meta: { title: 'Register', can: ['read', 'Register'] } },
+  { path: '/register/matrix', name: 'register-matrix', component: () => import('@/views/RegisterMatrixView.vue'), meta: { title: 'People by scope', can: ['read', 'Register'] } },
+  { path: '/overview', name: 'overview', component: () => import('@/views/OverviewView.vue'), meta: { title: 'Overview', can: ['read', 'Overview'] } },
+  { path: '/audit', name: 'audit-trail', component: () => import('@/views/AuditTrailView.vue'), meta: { title: 'Audit trail', can: ['read', 'AuditLog'] } },
+  { path: '/findings', name: 'findings', component: () => import('@/views/FindingsView.vue'), meta: { title: 'Findings', can: ['read', 'Finding'] } },
+  { path: '/incident-pack', name: 'incident-pack', component: () => import('@/views/IncidentPackView.vue'), meta: { title: 'Incident pack', can: ['read', 'Register'] } },
+  { path: '/people/:id/record', name: 'person-record', component: () => import('@/views/PersonRecordView.vue'), meta: { title: 'Person record', can: ['read', 'PersonRecord'] } },
+  { path: '/my-record', name: 'my-record', component: () => import('@/views/PersonRecordView.vue'), meta: { title: 'Everything on record about you', can: ['read', 'PersonRecord'] } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { title: 'Page not found' } },
 ];

@@ -5,7 +5,7 @@ import { authorisationRules } from './authorisations/abilities.js';
 import { recordRules } from './practicals/abilities.js';
 import { registerRules } from './register/abilities.js';
 
-export type Action = 'manage' | 'create' | 'read' | 'update' | 'delete' | 'invite' | 'assignRole' | 'approve';
+export type Action = 'manage' | 'create' | 'read' | 'update' | 'delete' | 'invite' | 'assignRole' | 'approve' | 'review';
 export type SubjectName = 'User' | 'Site' | 'MailLog' | 'AuditLog' | 'Bench' | 'BenchCheck' | 'Instrument' | 'Evidence' | 'Procedure' | 'Acknowledgement' | 'ReviewReminder' | 'Scope' | 'Authorisation' | 'Certificate' | 'Reminder' | 'Signoff' | 'Practical' | 'Register' | 'Overview' | 'PersonRecord' | 'Finding' | 'all';
 export type Subject = SubjectName | (ForcedSubject<Exclude<SubjectName, 'all'>> & Record<string, any>);
 // Conditions are plain Mongo-style queries over a record's own fields (id, siteId, userId, …).

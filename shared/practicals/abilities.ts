@@ -22,4 +22,7 @@ export function recordRules({ can, cannot }: Builder, actor: { id: string; siteI
     can('update', 'Practical', { assessorId: actor.id });
   }
   if (has('manager')) can('read', ['Signoff', 'Practical'], { siteId: sites });
+  // 'review': the site-wide lists of what awaits a countersignature and of practicals (pages and navigation).
+  if (has('assessor') || has('manager')) can('review', ['Signoff', 'Practical'], { siteId: sites });
+  if (has('auditor')) can('review', ['Signoff', 'Practical']);
 }

@@ -1,5 +1,11 @@
 import { z } from 'zod';
 import { pageQuery } from './common.js';
+import { OUTCOMES, PRACTICAL_STATUSES } from '../practicals/terms.js';
+
+export {
+  LOAD_KINDS, LOAD_KIND_LABELS, OUTCOMES, OUTCOME_LABELS, PRACTICAL_STATUSES, PRACTICAL_STATUS_LABELS, ASSESSED_MEANING, ACKNOWLEDGED_MEANING,
+  type CircuitLoadKind, type Outcome, type PracticalStatus,
+} from '../practicals/terms.js';
 
 // The circuit under test on a practical. The supply is the bench's own; everything else the assessor enters.
 const num = (what: string) => z.number({ message: `enter the ${what}` });
@@ -8,16 +14,6 @@ const watts = num('rated power').positive('the rated power must be above zero').
 const ratedVolts = num('rated voltage').positive('the rated voltage must be above zero').max(1000, 'at most 1000 V');
 const amps = (what: string) => num(what).positive(`the ${what} must be above zero`).max(1000, 'at most 1000 A');
 const kPerW = (what: string) => num(what).min(0, `the ${what} cannot be negative`).max(1000);
-
-export const LOAD_KINDS = ['resistance', 'rated', 'resistive-inductive', 'lamp-filament', 'universal-motor'] as const;
-export type CircuitLoadKind = (typeof LOAD_KINDS)[number];
-export const LOAD_KIND_LABELS: Record<CircuitLoadKind, string> = {
-  resistance: 'Resistance (heater element)',
-  rated: 'Heater given by rated power',
-  'resistive-inductive': 'Resistance with inductance (R-L)',
-  'lamp-filament': 'Incandescent lamp',
-  'universal-motor': 'Universal motor',
-};
 
 export const circuitLoadSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('resistance'), ohms: ohms('load resistance') }),
@@ -74,21 +70,6 @@ export const openPracticalBody = z.object({
   circuit: circuitSchema,
 });
 export type OpenPracticalBody = z.infer<typeof openPracticalBody>;
-
-export const OUTCOMES = ['competent', 'not_yet_competent'] as const;
-export type Outcome = (typeof OUTCOMES)[number];
-export const OUTCOME_LABELS: Record<Outcome, string> = { competent: 'Competent', not_yet_competent: 'Not yet competent' };
-
-export const PRACTICAL_STATUSES = ['in_progress', 'assessed', 'acknowledged'] as const;
-export type PracticalStatus = (typeof PRACTICAL_STATUSES)[number];
-export const PRACTICAL_STATUS_LABELS: Record<PracticalStatus, string> = {
-  in_progress: 'Being recorded',
-  assessed: 'Signed by the assessor, awaiting the technician',
-  acknowledged: 'Signed by both',
-};
-
-export const ASSESSED_MEANING = 'assessed';
-export const ACKNOWLEDGED_MEANING = 'outcome acknowledged';
 
 export const witnessBody = z.object({ note: z.string().trim().max(1000, 'use at most 1000 characters').nullish().transform((v) => v || null) });
 export const outcomeBody = z.object({

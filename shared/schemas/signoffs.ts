@@ -1,21 +1,8 @@
 import { z } from 'zod';
 import { pageQuery } from './common.js';
+import { SIGNOFF_KINDS, SIGNOFF_STATUSES } from '../practicals/terms.js';
 
-export const SIGNOFF_KINDS = ['self-sign-off', 'bench-pre-use'] as const;
-export type SignoffKind = (typeof SIGNOFF_KINDS)[number];
-
-export const SIGNOFF_STATUSES = ['in_progress', 'submitted', 'countersigned', 'returned', 'recorded'] as const;
-export type SignoffStatus = (typeof SIGNOFF_STATUSES)[number];
-export const SIGNOFF_STATUS_LABELS: Record<SignoffStatus, string> = {
-  in_progress: 'Being filled in',
-  submitted: 'Signed, awaiting countersignature',
-  countersigned: 'Countersigned',
-  returned: 'Returned for correction',
-  recorded: 'Signed pre-use check',
-};
-
-export const COMPLETED_MEANING = 'completed as recorded';
-export const COUNTERSIGNED_MEANING = 'countersigned';
+export { SIGNOFF_KINDS, SIGNOFF_STATUSES, SIGNOFF_KIND_LABELS, SIGNOFF_STATUS_LABELS, COMPLETED_MEANING, COUNTERSIGNED_MEANING, type SignoffKind, type SignoffStatus } from '../practicals/terms.js';
 
 /**
  * One checklist entry as it is made; which fields count depends on the item's kind (tick: checked,

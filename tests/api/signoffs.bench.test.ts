@@ -68,17 +68,18 @@ describe('bench pre-use checks filled in from the checklist', () => {
 
 describe('lists of sign-offs, paged and filtered on the server', () => {
   it('when a technician lists their own, then only theirs come back; a manager of another site sees none of them', async () => {
+    // Filtered to this file's procedure: the demo seed has sign-offs of its own.
     const other = await signIn(t, DEMO.technician2);
     await other.post('/api/signoffs').send({ procedureId: proc.id, versionId: proc.versionId, checklistId: proc.selfSignOff.id });
-    const mine = (await tech.get('/api/signoffs').query({ pageSize: 2 })).body;
+    const mine = (await tech.get('/api/signoffs').query({ pageSize: 2, q: proc.version.code })).body;
     expect(mine).toMatchObject({ total: 2, page: 1, pageSize: 2 });
     expect(mine.items.every((r: { personName: string }) => r.personName === 'Tomasz Wójcik')).toBe(true);
-    expect((await tech.get('/api/signoffs').query({ view: 'site', kind: 'bench-pre-use', status: 'recorded' })).body.total).toBe(2);
-    expect((await tech.get('/api/signoffs').query({ view: 'site' })).body.total).toBe(2);
-    const siteWide = (await manager.get('/api/signoffs').query({ view: 'site' })).body;
+    expect((await tech.get('/api/signoffs').query({ view: 'site', kind: 'bench-pre-use', status: 'recorded', q: proc.version.code })).body.total).toBe(2);
+    expect((await tech.get('/api/signoffs').query({ view: 'site', q: proc.version.code })).body.total).toBe(2);
+    const siteWide = (await manager.get('/api/signoffs').query({ view: 'site', q: proc.version.code })).body;
     expect(siteWide.total).toBe(3);
     const manager2 = await signIn(t, DEMO.manager2);
-    expect((await manager2.get('/api/signoffs').query({ view: 'site' })).body.total).toBe(0);
+    expect((await manager2.get('/api/signoffs').query({ view: 'site', q: proc.version.code })).body.total).toBe(0);
     expect((await manager2.get(`/api/signoffs/${mine.items[0].id}`)).status).toBe(403);
   });
 });

@@ -3,6 +3,7 @@ import type { TestApp } from './app.js';
 import { DEMO, DEMO_PASSWORD, signIn } from './people.js';
 import { draftBody, publishNew } from './procedures.js';
 import type { SaveDraftInput } from '../../shared/schemas/procedures.js';
+import type { RecordItemView } from '../../shared/practicals/views.js';
 
 type Agent = Awaited<ReturnType<typeof signIn>>;
 
@@ -80,7 +81,7 @@ export async function acknowledge(agent: Agent, id: string, versionId: string) {
   expect(res.status, JSON.stringify(res.body)).toBe(201);
 }
 
-export const itemByPrompt = (record: { items: { id: string; prompt: string }[] }, start: string) => {
+export const itemByPrompt = (record: { items: RecordItemView[] }, start: string): RecordItemView & { entry: any } => {
   const item = record.items.find((i) => i.prompt.startsWith(start));
   if (!item) throw new Error(`no item starting "${start}"`);
   return item;

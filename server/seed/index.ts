@@ -7,6 +7,7 @@ import { seedPeople } from './seed-people.js';
 import { seedBenches } from './seed-benches.js';
 import { seedAuthorisations } from './seed-authorisations.js';
 import { seedProcedures } from './seed-procedures.js';
+import { seedRecords } from './seed-records.js';
 
 /**
  * Seeds the demo scenario into an empty database, in one transaction. Later features add their own
@@ -26,4 +27,5 @@ export async function seedDemoIfEmpty(db: Database, clock: Clock): Promise<boole
 export type SeedContext = Awaited<ReturnType<typeof seedPeople>>;
 export type SeedStep = (tx: Parameters<Parameters<Database['transaction']>[0]>[0], clock: Clock, audit: ReturnType<typeof makeAudit>, ctx: SeedContext) => Promise<void>;
 
-const SEED_STEPS: SeedStep[] = [seedBenches, seedProcedures, seedAuthorisations];
+// Sign-offs and practicals come before the authorisations, which rest on them.
+const SEED_STEPS: SeedStep[] = [seedBenches, seedProcedures, seedRecords, seedAuthorisations];

@@ -3,6 +3,7 @@ import { mdiSineWave } from '@mdi/js';
 import { mdiSolderingIron, mdiMeterElectricOutline } from '@mdi/js';
 import { mdiClipboardTextOutline } from '@mdi/js';
 import { mdiBookAccountOutline, mdiChartBar, mdiClipboardListOutline, mdiFlagOutline, mdiLinkVariant, mdiPackageDown } from '@mdi/js';
+import { mdiAccountHardHatOutline, mdiClipboardCheckMultipleOutline } from '@mdi/js';
 import type { Action, SubjectName } from '@shared/abilities';
 
 export interface NavItem {
@@ -25,6 +26,8 @@ export const navItems: NavItem[] = [
   { title: 'Outgoing mail', description: 'Every message the portal has sent, with its full text.', icon: mdiEmailFastOutline, to: 'outbox', can: ['read', 'MailLog'] },
   { title: 'Benches', description: 'Bench set-up, inspection dates and signed pre-use checks.', icon: mdiSolderingIron, to: 'benches', can: ['read', 'Bench'] },
   { title: 'Test instruments', description: 'Measurement category, voltage rating and calibration of the instruments in use.', icon: mdiMeterElectricOutline, to: 'instruments', can: ['read', 'Instrument'] },
+  { title: 'My sign-offs and practicals', description: 'Fill in and sign your checklists and bench pre-use checks; see your practicals and their outcomes.', icon: mdiClipboardCheckMultipleOutline, to: 'my-records', can: ['create', 'Signoff'] },
+  { title: 'At your sites', description: 'Sign-offs waiting for a countersignature, and the practicals run at the sites you cover.', icon: mdiAccountHardHatOutline, to: 'site-records', can: ['review', 'Signoff'] },
   { title: 'Bench calculator', description: 'Firing angle, power, waveforms and device temperature for a phase-control circuit; published test limits.', icon: mdiSineWave, to: 'calculator' },
   { title: 'Procedures', description: 'Bench-safety procedures under document control: versions, hold points, checklists and who has acknowledged them.', icon: mdiClipboardTextOutline, to: 'procedures', can: ['read', 'Procedure'] },
   { title: 'Register', description: 'Who holds which scope now, or at any past moment; the evidence behind each row; CSV and PDF.', icon: mdiClipboardListOutline, to: 'register', can: ['read', 'Register'] },

@@ -39,5 +39,10 @@ export const routes: RouteRecordRaw[] = [
   { path: '/incident-pack', name: 'incident-pack', component: () => import('@/views/IncidentPackView.vue'), meta: { title: 'Incident pack', can: ['read', 'Register'] } },
   { path: '/people/:id/record', name: 'person-record', component: () => import('@/views/PersonRecordView.vue'), meta: { title: 'Person record', can: ['read', 'PersonRecord'] } },
   { path: '/my-record', name: 'my-record', component: () => import('@/views/PersonRecordView.vue'), meta: { title: 'Everything on record about you', can: ['read', 'PersonRecord'] } },
+  { path: '/records', name: 'my-records', component: () => import('@/views/MyRecordsView.vue'), meta: { title: 'My sign-offs and practicals', can: ['create', 'Signoff'] } },
+  { path: '/records/site', name: 'site-records', component: () => import('@/views/SiteRecordsView.vue'), meta: { title: 'Sign-offs and practicals at your sites', can: ['review', 'Signoff'] } },
+  { path: '/signoffs/:id', name: 'signoff', component: () => import('@/views/SignoffView.vue'), meta: { title: 'Sign-off', can: ['read', 'Signoff'] } },
+  { path: '/practicals/new', name: 'practical-new', component: () => import('@/views/PracticalNewView.vue'), meta: { title: 'Open a practical', can: ['create', 'Practical'] } },
+  { path: '/practicals/:id', name: 'practical', component: () => import('@/views/PracticalView.vue'), meta: { title: 'Practical', can: ['read', 'Practical'] } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { title: 'Page not found' } },
 ];

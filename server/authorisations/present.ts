@@ -56,6 +56,7 @@ export function presentRequirement(r: RequirementRow, label: string): Requiremen
   return {
     id: r.id, kind: r.kind as RequirementView['kind'], label, procedureId: r.procedureId, scopeId: r.prerequisiteScopeId,
     certificateKind: (r.certificateKind as CertificateKind | null) ?? null,
+    practicalsCount: r.practicalsCount, practicalsWindowMonths: r.practicalsWindowMonths,
   };
 }
 

@@ -8,6 +8,8 @@ export interface RequirementView {
   procedureId: string | null;
   scopeId: string | null;
   certificateKind: CertificateKind | null;
+  practicalsCount: number | null;
+  practicalsWindowMonths: number | null;
 }
 
 export interface ScopeView {

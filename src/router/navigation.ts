@@ -4,6 +4,7 @@ import { mdiSolderingIron, mdiMeterElectricOutline } from '@mdi/js';
 import { mdiClipboardTextOutline } from '@mdi/js';
 import { mdiBookAccountOutline, mdiChartBar, mdiClipboardListOutline, mdiFlagOutline, mdiLinkVariant, mdiPackageDown } from '@mdi/js';
 import { mdiAccountHardHatOutline, mdiClipboardCheckMultipleOutline } from '@mdi/js';
+import { mdiAccountCheckOutline, mdiCalendarClockOutline, mdiCardAccountDetailsOutline, mdiFileCertificateOutline, mdiFileImportOutline, mdiShieldKeyOutline } from '@mdi/js';
 import type { Action, SubjectName } from '@shared/abilities';
 
 export interface NavItem {
@@ -36,5 +37,11 @@ export const navItems: NavItem[] = [
   { title: 'Findings', description: 'What auditors found, and the answers and closures from the sites.', icon: mdiFlagOutline, to: 'findings', can: ['read', 'Finding'] },
   { title: 'Audit trail', description: 'Every change with who, when and the values before and after; verify the chain.', icon: mdiLinkVariant, to: 'audit-trail', can: ['read', 'AuditLog'] },
   { title: 'Your record', description: 'Everything on record about you: roles, acknowledgements, sign-offs, practicals, certificates and authorisations.', icon: mdiBookAccountOutline, to: 'my-record', can: ['read', 'PersonRecord'] },
+  { title: 'What I may do', description: 'Your authorisations, their limits, the days left and what to renew.', icon: mdiAccountCheckOutline, to: 'my-authorisations', can: ['read', 'Authorisation'] },
+  { title: 'Certificates', description: 'First aid, CPR and similar certificates: upload them, and check them against the original.', icon: mdiFileCertificateOutline, to: 'certificates', can: ['read', 'Certificate'] },
+  { title: 'Due for renewal', description: 'Per site, the authorisations and certificates that run out soon.', icon: mdiCalendarClockOutline, to: 'authorisations-due', can: ['update', 'Authorisation'] },
+  { title: 'Scopes', description: 'What each authorisation allows, within which limits, and what it requires.', icon: mdiShieldKeyOutline, to: 'scopes', can: ['update', 'Scope'] },
+  { title: 'What each scope needs', description: 'For any person: each requirement met with its evidence, or what is missing.', icon: mdiCardAccountDetailsOutline, to: 'eligibility', can: ['update', 'Authorisation'] },
+  { title: 'Paper authorisations', description: 'Record authorisations held before the portal, one by one or from a CSV file.', icon: mdiFileImportOutline, to: 'authorisations-prior', can: ['create', 'Authorisation'] },
   { title: 'Your account', description: 'Your details, roles and sites, and your password.', icon: mdiAccountCircleOutline, to: 'profile' },
 ];

@@ -44,5 +44,13 @@ export const routes: RouteRecordRaw[] = [
   { path: '/signoffs/:id', name: 'signoff', component: () => import('@/views/SignoffView.vue'), meta: { title: 'Sign-off', can: ['read', 'Signoff'] } },
   { path: '/practicals/new', name: 'practical-new', component: () => import('@/views/PracticalNewView.vue'), meta: { title: 'Open a practical', can: ['create', 'Practical'] } },
   { path: '/practicals/:id', name: 'practical', component: () => import('@/views/PracticalView.vue'), meta: { title: 'Practical', can: ['read', 'Practical'] } },
+  { path: '/authorisations/mine', name: 'my-authorisations', component: () => import('@/views/AuthorisationsMineView.vue'), meta: { title: 'What I may do', can: ['read', 'Authorisation'] } },
+  { path: '/authorisations/due', name: 'authorisations-due', component: () => import('@/views/AuthorisationsDueView.vue'), meta: { title: 'Due for renewal', can: ['update', 'Authorisation'] } },
+  { path: '/authorisations/prior', name: 'authorisations-prior', component: () => import('@/views/AuthorisationPriorView.vue'), meta: { title: 'Authorisations held before the portal', can: ['create', 'Authorisation'] } },
+  { path: '/authorisations/:id', name: 'authorisation', component: () => import('@/views/AuthorisationView.vue'), meta: { title: 'Authorisation', can: ['read', 'Authorisation'] } },
+  { path: '/scopes', name: 'scopes', component: () => import('@/views/ScopesView.vue'), meta: { title: 'Authorisation scopes', can: ['read', 'Scope'] } },
+  { path: '/eligibility/:personId?', name: 'eligibility', component: () => import('@/views/EligibilityView.vue'), meta: { title: 'What each scope needs', can: ['read', 'Authorisation'] } },
+  { path: '/certificates', name: 'certificates', component: () => import('@/views/CertificatesView.vue'), meta: { title: 'Certificates', can: ['read', 'Certificate'] } },
+  { path: '/verify/:code', name: 'verify', component: () => import('@/views/VerifyView.vue'), meta: { title: 'Check an authorisation', public: true } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { title: 'Page not found' } },
 ];

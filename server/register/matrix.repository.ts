@@ -1,7 +1,7 @@
 import { sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../db/client.js';
 import type { RegisterState } from '../../shared/register/kinds.js';
-import { periodAt, stateAt, type Moment } from './state.sql.js';
+import { stateSource, type Moment } from './state.sql.js';
 import { rowsOf } from './rows.js';
 
 export interface MatrixWhere {
@@ -45,7 +45,7 @@ export async function matrixPage(db: Executor, f: MatrixWhere, page: number, pag
       x.id as "authorisationId", x.scope_id as "scopeId", x.ends_at as "endsAt", x.state
     from people left join lateral (
       select a.id, a.scope_id, pe.ends_at, st.state from authorisations a join scopes s on s.id = a.scope_id
-      ${periodAt(f.moment)} ${stateAt(f.moment)}
+      ${stateSource(f.moment)}
       where a.holder_id = people.id ${live}) x on true
     order by people.name, people.id`);
 }

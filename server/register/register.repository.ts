@@ -2,7 +2,7 @@ import { sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../db/client.js';
 import { users } from '../db/schema/index.js';
 import type { RegisterSort, RegisterState } from '../../shared/register/kinds.js';
-import { periodAt, stateAt, type Moment } from './state.sql.js';
+import { stateSource, type Moment } from './state.sql.js';
 import { rowsOf } from './rows.js';
 
 /** The columns the CASL rules for Register speak about: the holder and the holder's site. */
@@ -68,8 +68,7 @@ export function registerSelect(f: RegisterWhere, sort: RegisterSort = 'person', 
     join users on users.id = a.holder_id
     join sites si on si.id = users.site_id
     join scopes s on s.id = a.scope_id
-    ${periodAt(f.moment)}
-    ${stateAt(f.moment)}
+    ${stateSource(f.moment)}
     where ${sql.join(conds, sql` and `)}
     order by ${sql.raw(ORDER[sort].replace('%d', dir))}`;
 }

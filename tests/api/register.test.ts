@@ -51,6 +51,21 @@ describe('the register at a past moment', () => {
     }
   });
 
+  it('when read exactly at each recorded change and a millisecond either side, then the register still agrees with stateAt', async () => {
+    const moments = (await t.ownerQuery(
+      `select distinct m from (select e.effective_at as m from authorisation_events e join authorisation_periods p on p.id = e.period_id where p.scope_id = $1
+        union select ends_at from authorisation_periods where scope_id = $1 union select starts_at from authorisation_periods where scope_id = $1) x where m <= $2`,
+      [s.scope.id, t.clock.now()],
+    )).rows.map((r) => (r.m as Date).getTime());
+    expect(moments.length).toBeGreaterThanOrEqual(8);
+    for (const m of moments) {
+      for (const at of [m - 1, m, m + 1].map((x) => new Date(x).toISOString())) {
+        const listed = await registerAt(at);
+        for (const l of LETTERS) expect(listed[l] ?? 'none', `${l} at ${at}`).toBe((await stateAt(t.deps.db, { authorisationId: s.ids[l] }, new Date(at))).state);
+      }
+    }
+  });
+
   it('when filtered to live work in force, then only those in force at that moment are listed', async () => {
     expect(await registerAt('2026-03-11T12:00:00Z', { state: 'active', liveWork: 'true' })).toEqual({ a: 'active', c: 'active', d: 'active', f: 'active' });
     expect(await registerAt('2026-03-11T12:00:00Z', { state: 'active', liveWork: 'false' })).toEqual({});

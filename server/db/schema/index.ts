@@ -7,3 +7,4 @@ export * from './acknowledgements.js';
 export * from './authorisations.js';
 export * from './practicals.js';
 export * from './findings.js';
+export * from './register.js';

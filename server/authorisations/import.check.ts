@@ -61,6 +61,13 @@ export async function checkImport(db: Executor, actor: Actor, ability: AppAbilit
         if (!problems.length && site) seenPeople.set(row.email, (newPerson = { email: row.email, name: row.name, siteId: site.id, timeZone: site.timeZone, roles }));
       }
     }
+    // A row with no scope and no dates adds only the person.
+    const personOnly = !row.scope && !row.issued_on && !row.expires_on && !row.attested_by;
+    if (personOnly) {
+      if (existing) problems.push('email: this person is already in the portal and the row names no authorisation');
+      planned.push({ row, problems, holder, newPerson, scope: null });
+      continue;
+    }
     const scope = scopes.get(row.scope) ?? null;
     if (!scope) problems.push(`scope: no scope with code “${row.scope}”`);
     if (!validDate(row.issued_on)) problems.push('issued_on: use the form YYYY-MM-DD');

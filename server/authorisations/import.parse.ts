@@ -2,7 +2,7 @@ import { parse } from 'csv-parse/sync';
 import { unprocessable } from '../errors.js';
 
 export const IMPORT_COLUMNS = ['email', 'name', 'site', 'roles', 'scope', 'issued_on', 'expires_on', 'attested_by', 'note'] as const;
-const REQUIRED = ['email', 'scope', 'issued_on', 'expires_on', 'attested_by'] as const;
+const REQUIRED = ['email', 'name', 'site', 'scope', 'issued_on', 'expires_on', 'attested_by'] as const;
 
 export type ImportRow = Record<(typeof IMPORT_COLUMNS)[number], string> & { line: number };
 

@@ -58,7 +58,7 @@ export function makeImportService(deps: Deps, signatures: Signatures) {
       }
       // Locks in one order, so two imports touching the same people cannot deadlock.
       for (const id of [...holders.keys()].sort()) await lockPerson(tx, id);
-      for (const p of planned) {
+      for (const p of planned.filter((x) => x.scope)) {
         const holder = holders.get((p.holder ?? created.get(p.row.email)!).id)!;
         await writePrior(tx, w, holder, p.scope!, {
           issuedOn: p.row.issued_on, expiresOn: p.row.expires_on, attestedBy: p.row.attested_by, evidenceId: null, note: p.row.note,
@@ -66,8 +66,8 @@ export function makeImportService(deps: Deps, signatures: Signatures) {
         });
       }
       for (const id of [...holders.keys()].sort()) await reevaluatePerson(tx, id, { ...deps, actorId: actor.id });
-      await audit(tx, { actorId: actor.id, action: 'authorisation.imported', entity: 'authorisation_import', entityId: batchId, newValues: { rows: planned.length, people: created.size, signatureId: sig.id } });
-      return { people: created.size, authorisations: planned.length };
+      await audit(tx, { actorId: actor.id, action: 'authorisation.imported', entity: 'authorisation_import', entityId: batchId, newValues: { rows: planned.length, people: created.size, authorisations: planned.filter((x) => x.scope).length, signatureId: sig.id } });
+      return { people: created.size, authorisations: planned.filter((x) => x.scope).length };
     });
     return report(false, planned, written);
   }

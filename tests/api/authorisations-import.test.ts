@@ -92,14 +92,15 @@ describe('CSV import of people and their paper authorisations', () => {
       `lena.kraft@example.test,Lena Kraft,LEJ-W1,technician,${scope.code},2025-03-01,2026-08-31,Heike Krause,Register p. 3`,
       `lena.kraft@example.test,Lena Kraft,LEJ-W1,technician,${other.code},2025-04-01,2026-03-31,Heike Krause,Register p. 3`,
       `paul.ode@example.test,Paul Ode,CLE-L2,technician assessor,${scope.code},2024-09-01,2025-08-31,Dana Whitcombe,Already expired on paper`,
+      'rosa.lind@example.test,Rosa Lind,CLE-L2,technician,,,,,',
     ].join('\n');
     expect((await manager.post('/api/authorisations/import').send({ csv, dryRun: false })).body.error.fields.password).toBeTruthy();
     const before = await counts();
     const res = await manager.post('/api/authorisations/import').send({ csv, dryRun: false, password: DEMO_PASSWORD });
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ ok: true, dryRun: false, written: { people: 2, authorisations: 3 } });
+    expect(res.body).toMatchObject({ ok: true, dryRun: false, written: { people: 3, authorisations: 3 } });
     const after = await counts();
-    expect([after.users - before.users, after.periods - before.periods]).toEqual([2, 3]);
+    expect([after.users - before.users, after.periods - before.periods]).toEqual([3, 3]);
     const lena = (await t.ownerQuery(`select id from users where email = 'lena.kraft@example.test'`)).rows[0].id;
     const list = (await manager.get('/api/authorisations').query({ holderId: lena })).body.items as { state: string; recordedFromBefore: boolean; validUntil: string }[];
     expect(list.map((i) => [i.state, i.recordedFromBefore, i.validUntil]).sort()).toEqual([['active', true, '2026-03-31'], ['active', true, '2026-08-31']]);

@@ -2,6 +2,7 @@ import type { Deps } from '../deps.js';
 import type { Actor } from '../../shared/abilities.js';
 import { reevaluatePerson } from '../authorisations/issuing.js';
 import * as repo from './reminders.repository.js';
+import * as candidates from './candidates.repository.js';
 import { mailFor } from './context.js';
 
 const MINUTE = 60_000;
@@ -28,10 +29,10 @@ export function makeReminders(deps: Deps) {
   async function recordDue(): Promise<number> {
     const now = clock.now();
     const people = new Set([
-      ...(await repo.lapseCandidates(db, now, 2000)),
-      ...(await repo.graceCandidates(db, now, 2000)),
-      ...(await repo.rereadCandidates(db, now, 2000)),
-      ...(await repo.acknowledgementCandidates(db, now, 2000)),
+      ...(await candidates.lapseCandidates(db, now, 2000)),
+      ...(await candidates.graceCandidates(db, now, 2000)),
+      ...(await candidates.rereadCandidates(db, now, 2000)),
+      ...(await candidates.acknowledgementCandidates(db, now, 2000)),
     ]);
     for (const id of people) await db.transaction((tx) => reevaluatePerson(tx, id, { ...deps, actorId: null }));
     return people.size;

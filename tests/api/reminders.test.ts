@@ -2,7 +2,7 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { makeJobsTestApp, type JobsTestApp } from '../support/jobs.js';
 import { DEMO, DEMO_PASSWORD } from '../support/people.js';
 import { parseEml } from '../support/mail.js';
-import { makeScope, newPerson, submitCertificate, verifyCertificate } from '../support/authorisations.js';
+import { makeScope, newPerson, submitCertificate, verifyCertificate, type Person } from '../support/authorisations.js';
 import type { TestApp } from '../support/app.js';
 import { QUEUES } from '../../server/jobs/queues.js';
 
@@ -21,7 +21,7 @@ const app = () => t as unknown as TestApp;
 describe('exactly-once reminders with two server processes', () => {
   it('when two processes sweep the same database at the same moment, then each (period, offset, recipient) is recorded once and mailed once', async () => {
     const scope = await makeScope(manager, { title: 'Live testing behind an isolating transformer and 30 mA RCD', reminderOffsetsDays: [60, 30, 7] });
-    const people = [];
+    const people: Person[] = [];
     for (let i = 0; i < 12; i++) {
       const tech = await newPerson(app());
       await verifyCertificate(manager, await submitCertificate(tech, { issuedOn: '2026-01-05', expiresOn: '2029-01-05' }), DEMO_PASSWORD);
@@ -120,7 +120,7 @@ describe('a transport that fails', () => {
 
   it('when it lapses, then the holder and the site manager each get one notice saying what lapsed and what to do', async () => {
     t.clock.set('2026-04-01T09:00:00Z');
-    const scope = await makeScope(manager, { title: 'Heater regulator bench work', reminderOffsetsDays: [], validityMonths: 1 });
+    await makeScope(manager, { title: 'Heater regulator bench work', reminderOffsetsDays: [], validityMonths: 1 });
     const tech = await newPerson(app());
     await verifyCertificate(manager, await submitCertificate(tech, { issuedOn: '2026-03-05', expiresOn: '2029-01-05' }), DEMO_PASSWORD);
     t.clock.set('2026-05-03T09:00:00Z');

@@ -2,6 +2,7 @@ import type { Page } from '@shared/schemas/common';
 import type { EntryBody, OpenSignoffBody, SignoffListQuery } from '@shared/schemas/signoffs';
 import type { CircuitInput, Outcome, PracticalListQuery } from '@shared/schemas/practicals';
 import type { PracticalRowView, PracticalView, RecordItemView, SignoffRowView, SignoffView } from '@shared/practicals/views';
+import type { ScopeView } from '@shared/authorisations/views';
 import { api } from './client';
 
 export type { EntryBody, PracticalRowView, PracticalView, RecordItemView, SignoffRowView, SignoffView, CircuitInput, Outcome };
@@ -12,6 +13,7 @@ export interface OpenPracticalInput {
   procedureId: string;
   versionId: string;
   checklistId?: string;
+  scopeId?: string | null;
   instrumentIds: string[];
   circuit: CircuitInput;
 }
@@ -33,6 +35,7 @@ export const signoffsApi = {
 export const practicalsApi = {
   list: (query: Partial<PracticalListQuery>) => api.get<Page<PracticalRowView>>('/practicals', { ...query }),
   technicians: (q?: string) => api.get<{ items: Candidate[] }>('/practicals/technicians', { q }),
+  scopes: () => api.get<ScopeView[]>('/scopes'),
   open: (body: OpenPracticalInput) => api.post<PracticalView>('/practicals', body),
   get: (id: string) => api.get<PracticalView>(`/practicals/${id}`),
   save: (id: string, itemId: string, body: EntryBody) => api.put<PracticalView>(`/practicals/${id}/items/${itemId}`, body),

@@ -70,6 +70,11 @@ describe('who may run a practical, and on what', () => {
     const res = await assessor.post('/api/practicals').send(body({ scopeId: scope.body.id }));
     expect(res.status).toBe(403);
     expect(res.body.error.message).toContain('You do not hold LIVE-PC in force today');
+    // The demo's assessor holds LIVE-ISO-RCD (recorded from a paper authorisation): naming it opens the practical.
+    const held = (await manager.get('/api/scopes')).body.find((sc: { code: string }) => sc.code === 'LIVE-ISO-RCD');
+    const ok = await assessor.post('/api/practicals').send(body({ scopeId: held.id }));
+    expect(ok.status, JSON.stringify(ok.body)).toBe(201);
+    expect(ok.body.scope).toMatchObject({ code: 'LIVE-ISO-RCD' });
   });
 
   it('when a practical is signed, then edits get 409 (the database refuses them too) and a correction links to it', async () => {

@@ -33,6 +33,8 @@ describe('a practical recorded at the bench in the browser', () => {
     expect(await page.getByRole('heading', { name: 'Mains voltage can kill' }).isVisible()).toBe(true);
     expect(await page.getByText('HOLD POINT 1', { exact: true }).isVisible()).toBe(true);
     await page.getByRole('button', { name: 'Compact list' }).click();
+    // The site's instruments arrive after the practical itself.
+    await page.waitForLoadState('networkidle');
 
     const volts = page.getByRole('article', { name: /Output RMS voltage/ });
     const reading = volts.getByLabel('Reading in V');
@@ -49,6 +51,8 @@ describe('a practical recorded at the bench in the browser', () => {
 
     const angle = page.getByRole('article', { name: /Firing angle/ });
     await angle.getByLabel('Reading in °').fill('74,5');
+    await angle.getByRole('combobox', { name: 'Instrument used' }).click({ force: true });
+    await page.getByRole('option', { name: 'Brightline DP 70 SN BL70-5531' }).click();
     await angle.getByRole('button', { name: 'Record the reading' }).click();
     await angle.getByTestId('verdict').filter({ hasText: /^\s*Within the rule: passed\s*$/ }).waitFor();
     expect(await page.getByTestId('progress').textContent()).toBe('1 of 4 complete');

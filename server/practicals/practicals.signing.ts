@@ -30,10 +30,12 @@ export function makePracticalSigning(deps: Deps, signatures: Signatures) {
     const signer = await signatures.verify(actor.id, body.password);
     const now = clock.now();
     await db.transaction(async (tx) => {
-      await recordablePractical(tx, ability, id, true);
+      const locked = await recordablePractical(tx, ability, id, true);
       const signature = await signatures.record(tx, signer, { meaning: ASSESSED_MEANING, entity: 'practical', entityId: id });
       await repo.updatePractical(tx, id, { status: 'assessed', outcome: body.outcome, outcomeComment: body.comment, assessedAt: now, assessorSignatureId: signature.id, updatedAt: now });
       await audit(tx, { actorId: actor.id, action: 'practical.assessed', entity: 'practical', entityId: id, oldValues: { status: 'in_progress' }, newValues: { outcome: body.outcome, comment: body.comment, signatureId: signature.id } });
+      // A signed correction replaces the record it corrects: what rested on that one is decided again.
+      if (locked.correctsId) await reevaluatePerson(tx, locked.technicianId, { clock, audit, actorId: actor.id });
     });
     return view(id);
   }
@@ -59,7 +61,7 @@ export function makePracticalSigning(deps: Deps, signatures: Signatures) {
       await repo.updatePractical(tx, id, { status: 'acknowledged', acknowledgedAt: now, technicianSignatureId: signature.id, updatedAt: now });
       await audit(tx, { actorId: p.technicianId, action: 'practical.acknowledged', entity: 'practical', entityId: id, oldValues: { status: 'assessed' }, newValues: { signatureId: signature.id, onSessionOf: actor.id } });
       // The completing event: a competent practical's last signature issues what rests on it, here.
-      if (locked!.outcome === 'competent') await reevaluatePerson(tx, p.technicianId, { clock, audit, actorId: p.technicianId });
+      if (locked!.outcome === 'competent' || locked!.correctsId) await reevaluatePerson(tx, p.technicianId, { clock, audit, actorId: p.technicianId });
     });
     return view(id);
   }

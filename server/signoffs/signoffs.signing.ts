@@ -47,6 +47,8 @@ export function makeSignoffSigning(deps: Deps, signatures: Signatures) {
       }
       await repo.updateSignoff(tx, id, { ...patch, submittedAt: now, submitSignatureId: signature.id, updatedAt: now });
       await audit(tx, { actorId: actor.id, action: 'signoff.submitted', entity: 'signoff', entityId: id, oldValues: { status: 'in_progress' }, newValues: { ...patch, signatureId: signature.id } });
+      // A signed correction replaces the sign-off it corrects: what rested on that one is decided again.
+      if (locked.correctsId) await reevaluatePerson(tx, locked.personId, { clock, audit, actorId: actor.id });
     });
     return view(id);
   }
@@ -78,12 +80,13 @@ export function makeSignoffSigning(deps: Deps, signatures: Signatures) {
   }
 
   async function returnIt(actor: Actor, ability: AppAbility, id: string, comment: string) {
-    await reviewable(db, actor, ability, id);
+    const row = await reviewable(db, actor, ability, id);
     const now = clock.now();
     await db.transaction(async (tx) => {
       await reviewable(tx, actor, ability, id, true);
       await repo.updateSignoff(tx, id, { status: 'returned', reviewedBy: actor.id, reviewedAt: now, returnComment: comment, updatedAt: now });
       await audit(tx, { actorId: actor.id, action: 'signoff.returned', entity: 'signoff', entityId: id, oldValues: { status: 'submitted' }, newValues: { status: 'returned', comment } });
+      if (row.correctsId) await reevaluatePerson(tx, row.personId, { clock, audit, actorId: actor.id });
     });
     return view(id);
   }

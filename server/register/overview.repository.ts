@@ -1,25 +1,26 @@
 import { sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../db/client.js';
 import type { AuthorisationState } from '../../shared/authorisations/kinds.js';
-import { registerSelect, type RegisterWhere } from './register.repository.js';
+import { spanSelect, type RegisterWhere } from './register.repository.js';
 import { rowsOf } from './rows.js';
 
 const RUNNING = sql`r.state in ('active', 'suspended', 'renewal_submitted')`;
 const iso = (d: Date) => sql`${d.toISOString()}::timestamptz`;
+const COLUMNS = sql`si.id as "siteId", si.code as "siteCode", s.id as "scopeId", s.code as "scopeCode", st.state, pe.ends_at as "endsAt"`;
 
 /** Counts by site, scope and state at the moment (a register with every row, grouped). */
 export async function stateCounts(db: Executor, f: RegisterWhere) {
   return rowsOf<{ siteId: string; siteCode: string; scopeId: string; scopeCode: string; state: AuthorisationState; n: number }>(db, sql`select r."siteId", r."siteCode", r."scopeId", r."scopeCode", r.state, count(*)::int as n
-    from (${registerSelect(f)}) r group by 1, 2, 3, 4, 5 order by 2, 4, 5`);
+    from (${spanSelect(f, COLUMNS, ['si', 's', 'pe'])}) r group by 1, 2, 3, 4, 5 order by 2, 4, 5`);
 }
 
 /** Running authorisations ending within each window, and per week over the coming weeks. */
 export async function expiries(db: Executor, f: RegisterWhere, windowsDays: readonly number[], weeks: number) {
   const now = f.moment.at;
   const windows = sql.join(windowsDays.map((d, i) => sql`count(*) filter (where r."endsAt" <= ${iso(now)} + ${`${d} days`}::interval)::int as ${sql.raw(`w${i}`)}`), sql`, `);
-  const [totals] = await rowsOf<Record<string, number>>(db, sql`select ${windows} from (${registerSelect(f)}) r where ${RUNNING}`);
+  const [totals] = await rowsOf<Record<string, number>>(db, sql`select ${windows} from (${spanSelect(f, COLUMNS, ['si', 's', 'pe'])}) r where ${RUNNING}`);
   const byWeek = await rowsOf<{ week: number; n: number }>(db, sql`select floor(extract(epoch from (r."endsAt" - ${iso(now)})) / 604800)::int as week, count(*)::int as n
-    from (${registerSelect(f)}) r where ${RUNNING} and r."endsAt" <= ${iso(now)} + ${`${weeks * 7} days`}::interval group by 1 order by 1`);
+    from (${spanSelect(f, COLUMNS, ['si', 's', 'pe'])}) r where ${RUNNING} and r."endsAt" <= ${iso(now)} + ${`${weeks * 7} days`}::interval group by 1 order by 1`);
   return {
     windows: windowsDays.map((days, i) => ({ days, n: Number(totals?.[`w${i}`] ?? 0) })),
     weeks: byWeek,

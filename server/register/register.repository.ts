@@ -1,4 +1,5 @@
 import { sql, type SQL } from 'drizzle-orm';
+import { PgDialect } from 'drizzle-orm/pg-core';
 import type { Executor } from '../db/client.js';
 import { users } from '../db/schema/index.js';
 import type { RegisterSort, RegisterState } from '../../shared/register/kinds.js';
@@ -42,6 +43,14 @@ export interface RegisterWhere {
   authorisationIds?: string[];
 }
 
+// The same orders over a register row's output names, for a query wrapped around registerSelect.
+const ORDER_OUTER: Record<RegisterSort, string> = {
+  person: 'r."personName" %d, r."scopeCode", r."authorisationId"',
+  site: 'r."siteCode" %d, r."personName", r."scopeCode", r."authorisationId"',
+  scope: 'r."scopeCode" %d, r."personName", r."authorisationId"',
+  expiry: 'r."endsAt" %d, r."personName", r."scopeCode", r."authorisationId"',
+};
+
 const ORDER: Record<RegisterSort, string> = {
   person: 'users.name %d, s.code, a.id',
   site: 'si.code %d, users.name, s.code, a.id',
@@ -49,28 +58,67 @@ const ORDER: Record<RegisterSort, string> = {
   expiry: 'pe.ends_at %d, users.name, s.code, a.id',
 };
 
-/** The register's rows at a moment as one query: holders, scopes, the period then and its state then. */
-export function registerSelect(f: RegisterWhere, sort: RegisterSort = 'person', dir: 'asc' | 'desc' = 'asc', withTotal = false): SQL {
+// Filters over the authorisation's columns, named for where they are read: the authorisation row, or a span.
+type Cols = { id: string; holder: string; scope: string };
+const FROM_AUTH: Cols = { id: 'a.id', holder: 'a.holder_id', scope: 'a.scope_id' };
+const FROM_SPAN: Cols = { id: 'st.authorisation_id', holder: 'st.holder_id', scope: 'st.scope_id' };
+
+function conditions(f: RegisterWhere, c: Cols): SQL {
   const conds: SQL[] = [f.access];
   if (f.siteId) conds.push(sql`users.site_id = ${f.siteId}`);
-  if (f.scopeId) conds.push(sql`a.scope_id = ${f.scopeId}`);
-  if (f.personId) conds.push(sql`a.holder_id = ${f.personId}`);
+  if (f.scopeId) conds.push(sql`${sql.raw(c.scope)} = ${f.scopeId}`);
+  if (f.personId) conds.push(sql`${sql.raw(c.holder)} = ${f.personId}`);
   if (f.liveWork !== undefined) conds.push(sql`s.allows_live_work = ${f.liveWork}`);
   if (f.state) conds.push(sql`st.state = ${f.state}`);
-  if (f.q) conds.push(sql`users.name ilike ${`%${f.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`}`);
-  if (f.authorisationIds) conds.push(f.authorisationIds.length ? sql`a.id in (${sql.join(f.authorisationIds.map((id) => sql`${id}`), sql`, `)})` : sql`false`);
+  if (f.q) conds.push(sql`users.name ilike ${`%${f.q.replace(/[%_\\]/g, (ch) => `\\${ch}`)}%`}`);
+  if (f.authorisationIds) conds.push(f.authorisationIds.length ? sql`${sql.raw(c.id)} in (${sql.join(f.authorisationIds.map((id) => sql`${id}`), sql`, `)})` : sql`false`);
+  return sql.join(conds, sql` and `);
+}
+
+/** The register's rows at a moment as one query: holders, scopes, the period then and its state then. */
+export function registerSelect(f: RegisterWhere, sort: RegisterSort = 'person', dir: 'asc' | 'desc' = 'asc'): SQL {
   return sql`select a.id as "authorisationId", pe.id as "periodId", users.id as "personId", users.name as "personName",
       si.id as "siteId", si.code as "siteCode", si.name as "siteName", si.time_zone as "timeZone",
       s.id as "scopeId", s.code as "scopeCode", s.title as "scopeTitle", s.allows_live_work as "allowsLiveWork",
       s.max_voltage_v as "maxVoltageV", s.max_current_a as "maxCurrentA", pe.origin, pe.starts_at as "startsAt", pe.ends_at as "endsAt",
-      st.state, st.since ${withTotal ? sql`, count(*) over () as total` : sql``}
+      st.state, st.since
     from authorisations a
     join users on users.id = a.holder_id
     join sites si on si.id = users.site_id
     join scopes s on s.id = a.scope_id
     ${stateSource(f.moment)}
-    where ${sql.join(conds, sql` and `)}
+    where ${conditions(f, FROM_AUTH)}
     order by ${sql.raw(ORDER[sort].replace('%d', dir))}`;
+}
+
+/**
+ * How many rows the register has at the moment. As it took effect: counted from the spans containing the
+ * moment (GiST), joined only to what the filters need, so the count never folds a row; the page itself
+ * stops at its last row. As recorded then: every row is folded, so that count costs what the rows do.
+ */
+function countSelect(f: RegisterWhere): SQL {
+  if (f.moment.known) return sql`select count(*)::int from (${registerSelect(f)}) r`;
+  return spanSelect(f, sql`count(*)::int`);
+}
+
+const dialect = new PgDialect();
+// Auditors and admins see every row: their condition is plain "true", and a count then needs no join to people.
+const everything = (access: SQL) => dialect.sqlToQuery(access).sql.trim() === 'true';
+
+/**
+ * Columns of the spans containing the moment (as it took effect), filtered, unordered: for counts and the
+ * overview. Joins only what the filters and the asked-for columns need (`with`: sites si, scopes s, periods pe).
+ */
+export function spanSelect(f: RegisterWhere, columns: SQL, withTables: ('si' | 's' | 'pe')[] = []): SQL {
+  const needs = new Set(withTables);
+  const people = needs.has('si') || !everything(f.access) || !!f.siteId || !!f.q;
+  if (f.liveWork !== undefined) needs.add('s');
+  return sql`select ${columns} from authorisation_state_spans st
+    ${people ? sql`join users on users.id = st.holder_id` : sql``}
+    ${needs.has('si') ? sql`join sites si on si.id = users.site_id` : sql``}
+    ${needs.has('s') ? sql`join scopes s on s.id = st.scope_id` : sql``}
+    ${needs.has('pe') ? sql`join authorisation_periods pe on pe.id = st.period_id` : sql``}
+    where st.span @> ${f.moment.at.toISOString()}::timestamptz and ${conditions(f, FROM_SPAN)}`;
 }
 
 type Raw = Omit<RegisterRowData, 'startsAt' | 'endsAt' | 'since'> & { startsAt: string | Date; endsAt: string | Date; since: string | Date; total?: string };
@@ -80,15 +128,20 @@ export function toRow(r: Raw): RegisterRowData {
 }
 
 export async function registerPage(db: Executor, f: RegisterWhere, sort: RegisterSort, dir: 'asc' | 'desc', page: number, pageSize: number) {
-  const rows = await rowsOf<Raw>(db, sql`${registerSelect(f, sort, dir, true)} limit ${pageSize} offset ${(page - 1) * pageSize}`);
+  const limit = sql`limit ${pageSize} offset ${(page - 1) * pageSize}`;
+  // Known-then rows are folded one by one anyway: one pass gives the rows and, through the window, their count.
+  const query = f.moment.known
+    ? sql`select r.*, count(*) over () as total from (${registerSelect(f, sort, dir)}) r order by ${sql.raw(ORDER_OUTER[sort].replace('%d', dir))} ${limit}`
+    : sql`select page.*, (${countSelect(f)}) as total from (${registerSelect(f, sort, dir)} ${limit}) page`;
+  const rows = await rowsOf<Raw>(db, query);
   // Past the last page the window has no row to carry the total: count once more, without paging.
   const total = rows.length ? Number(rows[0].total) : page > 1 ? await registerCount(db, f) : 0;
   return { items: rows.map(toRow), total };
 }
 
 export async function registerCount(db: Executor, f: RegisterWhere): Promise<number> {
-  const [row] = await rowsOf<{ n: number }>(db, sql`select count(*)::int as n from (${registerSelect(f)}) r`);
-  return Number(row.n);
+  const [row] = await rowsOf<{ count: number }>(db, countSelect(f));
+  return Number(row.count);
 }
 
 /** Up to `limit` rows, all at once (the PDF report); `limit + 1` tells the caller there were more. */

@@ -23,4 +23,5 @@ export const authorisationStateSpans = pgTable('authorisation_state_spans', {
   index('authorisation_state_spans_state_span_idx').using('gist', t.state, t.span),
   index('authorisation_state_spans_authorisation_idx').on(t.authorisationId),
   index('authorisation_state_spans_holder_idx').on(t.holderId),
+  index('authorisation_state_spans_period_idx').on(t.periodId),
 ]);

@@ -1,0 +1,1 @@
+CREATE INDEX "authorisation_state_spans_period_idx" ON "authorisation_state_spans" USING btree ("period_id");

@@ -57,7 +57,7 @@ describe('evidence upload', () => {
 });
 
 describe('evidence list', () => {
-  it('when a record has an image and a PDF, then the image is shown and the PDF is offered as a download, never framed', async () => {
+  it('when a record has an image and a PDF, then the image is shown and the PDF is previewed in a frame and offered as a download', async () => {
     const base = { ownerId: 'o', ownerName: 'Tomasz Wójcik', siteId: 's', uploaderId: 'o', uploaderName: 'Tomasz Wójcik', entity: 'person', entityId: 'o', sha256: 'a'.repeat(64), caption: null, uploadedAt: '2026-03-02T09:00:00.000Z' };
     serve(() => ({ status: 200, body: { total: 2, page: 1, pageSize: 50, items: [
       { ...base, id: 'e1', fileName: 'scope.png', mediaType: 'image/png', sizeBytes: 2048, contentUrl: '/api/evidence/e1/content' },
@@ -66,6 +66,8 @@ describe('evidence list', () => {
     await mountWith(EvidenceList, { user: userWith(['technician']), props: { ownerId: 'o' } });
     expect(document.querySelector('img')?.getAttribute('src')).toBe('/api/evidence/e1/content');
     expect(getByRole('link', 'Download the PDF').getAttribute('href')).toBe('/api/evidence/e2/content');
-    expect(document.querySelector('iframe, object, embed')).toBeNull();
+    const frame = document.querySelector('iframe');
+    expect(frame?.getAttribute('src')).toBe('/api/evidence/e2/content?preview=1');
+    expect(frame?.getAttribute('title')).toBe('Preview of ir-test.pdf');
   });
 });

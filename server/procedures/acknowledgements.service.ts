@@ -11,6 +11,7 @@ import { conflict, forbidden, notFound, unprocessable } from '../errors.js';
 import { existingProcedure, readableVersion } from './procedures.access.js';
 import * as repo from './procedures.repository.js';
 import * as acks from './acknowledgements.repository.js';
+import { reevaluatePerson } from '../authorisations/index.js';
 
 export interface RereadNotice {
   userId: string;
@@ -40,6 +41,8 @@ export function makeAcknowledgements(deps: Deps, signatures: Signatures) {
       const sig = await signatures.record(tx, signer, { meaning: ACKNOWLEDGEMENT_MEANING, entity: 'procedure_version', entityId: v.id });
       const row = await acks.insertAcknowledgement(tx, { procedureId: id, versionId: v.id, versionNumber: v.number, userId: actor.id, signatureId: sig.id, acknowledgedAt: sig.signedAt });
       await audit(tx, { actorId: actor.id, action: 'procedure.acknowledged', entity: 'procedure_version', entityId: v.id, newValues: { acknowledgementId: row.id, number: v.number, signatureId: sig.id } });
+      // An acknowledgement can be the last requirement of a scope: issue in this same transaction.
+      await reevaluatePerson(tx, actor.id, { clock, audit, actorId: actor.id });
       return sig;
     });
     return { acknowledgement: presentSignature(signature) };
@@ -73,6 +76,7 @@ export function makeAcknowledgements(deps: Deps, signatures: Signatures) {
       const locked = await acks.findRequest(tx, published.id, userId, true);
       const row = await acks.updateRequest(tx, locked!.id, { dueOn: body.dueOn, extendedAt: clock.now(), extendedBy: actor.id, extensionReason: body.reason });
       await audit(tx, { actorId: actor.id, action: 'procedure.reread_extended', entity: 'procedure_reread_request', entityId: row.id, oldValues: { dueOn: locked!.dueOn }, newValues: body });
+      await reevaluatePerson(tx, userId, { clock, audit, actorId: actor.id });
       return row;
     });
     return { userId, dueOn: updated.dueOn, extensionReason: updated.extensionReason };

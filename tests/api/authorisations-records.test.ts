@@ -131,4 +131,19 @@ describe('a re-read version with a deadline', () => {
     expect(last.reason).toMatch(/Version 2 was to be acknowledged by 24 Mar 2026/);
     expect((await mineFor(prompt, scope.id))?.state).toBe('active');
   });
+
+  it('when acknowledging the procedure is the last requirement, then the acknowledgement itself issues the authorisation, with no sweep', async () => {
+    const { draftBody, publishNew } = await import('../support/procedures.js');
+    const manager2 = await signIn(t, DEMO.manager2);
+    const p = await publishNew(manager, manager2, draftBody({ title: 'Swapping the suppression capacitor on a motor controller' }));
+    const scope = await makeScope(manager, { title: 'Dead work on motor controllers', validityMonths: 12, requirements: [{ kind: 'procedure_ack', procedureId: p.id }, { kind: 'certificate', certificateKind: 'first_aid_cpr' }] });
+    const tech = await newPerson(t);
+    t.clock.set('2026-04-01T09:00:00Z');
+    await verifyCertificate(manager, await submitCertificate(tech, { issuedOn: '2026-01-05', expiresOn: '2029-01-05' }), DEMO_PASSWORD);
+    expect(await mineFor(tech, scope.id), 'not before the acknowledgement').toBeUndefined();
+    expect((await tech.post(`/api/procedures/${p.id}/versions/${p.versionId}/acknowledge`).send({ password: PERSON_PASSWORD })).status).toBe(201);
+    const issued = await mineFor(tech, scope.id);
+    expect(issued?.state).toBe('active');
+    expect(issued?.validUntil).toBe('2027-04-01');
+  });
 });

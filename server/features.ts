@@ -40,7 +40,8 @@ export function buildServices(deps: Deps) {
   const procedures = makeProcedureServices(deps, signatures);
   const authorisations = makeAuthorisationsFeature(deps, signatures);
   const reminders = makeReminders(deps);
-  const jobs = makeJobs(deps, reminders);
+  // Procedure review-due reminders ride on the same scheduled sweep (30, 7 and 0 days before).
+  const jobs = makeJobs(deps, reminders, [() => procedures.reminders.run(null, [30, 7, 0])]);
   const signoffs = makeSignoffsFeature(deps, signatures, usability);
   const practicals = makePracticalsFeature(deps, signatures, usability);
   const register = makeRegisterFeature(deps, { people, authorisations });

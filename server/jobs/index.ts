@@ -15,7 +15,8 @@ export interface JobsOptions {
  * One pg-boss per app process, on the owner connection (DATABASE_URL without the application role) and
  * its own schema. Workers receive arrays of jobs. Nothing runs until start(); stop() drains and closes.
  */
-export function makeJobs(deps: Deps, reminders: Reminders) {
+/** `alongside` runs with every sweep: other once-only reminder work (procedure reviews due). */
+export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Promise<unknown>)[] = []) {
   let boss: PgBoss | null = null;
   let starting: Promise<void> | null = null;
 
@@ -35,7 +36,10 @@ export function makeJobs(deps: Deps, reminders: Reminders) {
     const work = { batchSize: 1, pollingIntervalSeconds: opts.pollSeconds ?? 2 };
     await b.work(QUEUES.sweep, work, async (jobs) => {
       const out: (SweepResult & { pid: number })[] = [];
-      for (const _job of jobs) out.push({ ...(await reminders.sweep()), pid: process.pid });
+      for (const _job of jobs) {
+        out.push({ ...(await reminders.sweep()), pid: process.pid });
+        for (const task of alongside) await task();
+      }
       await afterSweep(out[out.length - 1]);
       return out.length === 1 ? out[0] : out;
     });

@@ -133,4 +133,17 @@ describe('a transport that fails', () => {
     expect(own.text).toMatch(/lapsed at the end of 1 May 2026\.\nIt reached the end of its validity\./);
     expect(own.text).toMatch(/To get it back:\n {2}- Meet the requirements again/);
   });
+
+  it('when the queued sweep runs, then the procedure reviews falling due are reminded too (the demo has an overdue one), once each', async () => {
+    t.transport.failing = false;
+    const count = async () => Number((await t.ownerQuery('select count(*) from procedure_review_reminders where sent_at is not null')).rows[0].count);
+    const first = await manager.post('/api/reminders/sweep');
+    await t.waitForJobs([first.body.jobId]);
+    const after = await count();
+    // Only queued sweeps run the review reminders in this file (direct sweeps above do not).
+    expect(after).toBeGreaterThan(0);
+    const second = await manager.post('/api/reminders/sweep');
+    await t.waitForJobs([second.body.jobId]);
+    expect(await count(), 'sent once').toBe(after);
+  });
 });

@@ -3,7 +3,7 @@ import { PgDialect } from 'drizzle-orm/pg-core';
 import type { Executor } from '../db/client.js';
 import { users } from '../db/schema/index.js';
 import type { RegisterSort, RegisterState } from '../../shared/register/kinds.js';
-import { stateSource, type Moment } from './state.sql.js';
+import { spanHolds, stateSource, type Moment } from './state.sql.js';
 import { rowsOf } from './rows.js';
 
 /** The columns the CASL rules for Register speak about: the holder and the holder's site. */
@@ -93,7 +93,7 @@ export function registerSelect(f: RegisterWhere, sort: RegisterSort = 'person', 
 
 /**
  * How many rows the register has at the moment. As it took effect: counted from the spans containing the
- * moment (GiST), joined only to what the filters need, so the count never folds a row; the page itself
+ * moment (btree, index-only), joined only to what the filters need, so the count never folds a row; the page itself
  * stops at its last row. As recorded then: every row is folded, so that count costs what the rows do.
  */
 function countSelect(f: RegisterWhere): SQL {
@@ -118,7 +118,7 @@ export function spanSelect(f: RegisterWhere, columns: SQL, withTables: ('si' | '
     ${needs.has('si') ? sql`join sites si on si.id = users.site_id` : sql``}
     ${needs.has('s') ? sql`join scopes s on s.id = st.scope_id` : sql``}
     ${needs.has('pe') ? sql`join authorisation_periods pe on pe.id = st.period_id` : sql``}
-    where st.span @> ${f.moment.at.toISOString()}::timestamptz and ${conditions(f, FROM_SPAN)}`;
+    where ${spanHolds(f.moment.at)} and ${conditions(f, FROM_SPAN)}`;
 }
 
 type Raw = Omit<RegisterRowData, 'startsAt' | 'endsAt' | 'since'> & { startsAt: string | Date; endsAt: string | Date; since: string | Date; total?: string };

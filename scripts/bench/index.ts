@@ -2,6 +2,7 @@ import type { Agent } from 'supertest';
 import type { createApp } from '../../server/app.js';
 import type { SettableClock } from '../../server/clock.js';
 import { peopleSuite } from './people.js';
+import { registerSuite } from './register.js';
 
 export interface BenchCase {
   name: string;
@@ -15,4 +16,4 @@ export type BenchContext = ReturnType<typeof createApp> & { clock: SettableClock
 export type BenchSuite = (ctx: BenchContext) => Promise<BenchCase[]>;
 
 /** Each feature adds its suite here; suites run in order on one database and may build on earlier data. */
-export const BENCH_SUITES: BenchSuite[] = [peopleSuite];
+export const BENCH_SUITES: BenchSuite[] = [peopleSuite, registerSuite];

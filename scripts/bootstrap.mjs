@@ -26,8 +26,9 @@ if (stale) {
   }
 }
 
-const tsx = path.join(root, 'node_modules', '.bin', 'tsx');
-const child = spawn(tsx, [path.join(root, 'scripts', `${command}.ts`), ...process.argv.slice(3)], {
+// Node itself with tsx's loader (not the tsx CLI, which adds a process of its own between us and the
+// script and handles signals its own way): a Ctrl-C reaches the script, which stops what it started.
+const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'scripts', `${command}.ts`), ...process.argv.slice(3)], {
   cwd: root,
   stdio: 'inherit',
 });

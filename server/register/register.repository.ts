@@ -3,7 +3,7 @@ import { PgDialect } from 'drizzle-orm/pg-core';
 import type { Executor } from '../db/client.js';
 import { users } from '../db/schema/index.js';
 import type { RegisterSort, RegisterState } from '../../shared/register/kinds.js';
-import { spanHolds, stateSource, type Moment } from './state.sql.js';
+import { revisedSince, spanHolds, stateSource, type Moment } from './state.sql.js';
 import { rowsOf } from './rows.js';
 
 /** The columns the CASL rules for Register speak about: the holder and the holder's site. */
@@ -41,15 +41,9 @@ export interface RegisterWhere {
   state?: RegisterState;
   liveWork?: boolean;
   authorisationIds?: string[];
+  /** Known-then reading only: just the authorisations something was recorded about afterwards. */
+  onlyRevised?: boolean;
 }
-
-// The same orders over a register row's output names, for a query wrapped around registerSelect.
-const ORDER_OUTER: Record<RegisterSort, string> = {
-  person: 'r."personName" %d, r."scopeCode", r."authorisationId"',
-  site: 'r."siteCode" %d, r."personName", r."scopeCode", r."authorisationId"',
-  scope: 'r."scopeCode" %d, r."personName", r."authorisationId"',
-  expiry: 'r."endsAt" %d, r."personName", r."scopeCode", r."authorisationId"',
-};
 
 const ORDER: Record<RegisterSort, string> = {
   person: 'users.name %d, s.code, a.id',
@@ -71,6 +65,7 @@ function conditions(f: RegisterWhere, c: Cols): SQL {
   if (f.liveWork !== undefined) conds.push(sql`s.allows_live_work = ${f.liveWork}`);
   if (f.state) conds.push(sql`st.state = ${f.state}`);
   if (f.q) conds.push(sql`users.name ilike ${`%${f.q.replace(/[%_\\]/g, (ch) => `\\${ch}`)}%`}`);
+  if (f.onlyRevised) conds.push(sql`rv.authorisation_id is not null`);
   if (f.authorisationIds) conds.push(f.authorisationIds.length ? sql`${sql.raw(c.id)} in (${sql.join(f.authorisationIds.map((id) => sql`${id}`), sql`, `)})` : sql`false`);
   return sql.join(conds, sql` and `);
 }
@@ -97,8 +92,10 @@ export function registerSelect(f: RegisterWhere, sort: RegisterSort = 'person', 
  * stops at its last row. As recorded then: every row is folded, so that count costs what the rows do.
  */
 function countSelect(f: RegisterWhere): SQL {
-  if (f.moment.known) return sql`select count(*)::int from (${registerSelect(f)}) r`;
-  return spanSelect(f, sql`count(*)::int`);
+  if (!f.moment.known) return spanSelect(f, sql`count(*)::int`);
+  // Known then: the spans count for every authorisation nothing was recorded about afterwards, plus the fold of the few that had.
+  const settled = sql`${spanSelect(f, sql`count(*)::int`)} and st.authorisation_id not in (${revisedSince(f.moment.at)})`;
+  return sql`select (${settled}) + (select count(*)::int from (${registerSelect({ ...f, onlyRevised: true })}) r)`;
 }
 
 const dialect = new PgDialect();
@@ -128,12 +125,8 @@ export function toRow(r: Raw): RegisterRowData {
 }
 
 export async function registerPage(db: Executor, f: RegisterWhere, sort: RegisterSort, dir: 'asc' | 'desc', page: number, pageSize: number) {
-  const limit = sql`limit ${pageSize} offset ${(page - 1) * pageSize}`;
-  // Known-then rows are folded one by one anyway: one pass gives the rows and, through the window, their count.
-  const query = f.moment.known
-    ? sql`select r.*, count(*) over () as total from (${registerSelect(f, sort, dir)}) r order by ${sql.raw(ORDER_OUTER[sort].replace('%d', dir))} ${limit}`
-    : sql`select page.*, (${countSelect(f)}) as total from (${registerSelect(f, sort, dir)} ${limit}) page`;
-  const rows = await rowsOf<Raw>(db, query);
+  const rows = await rowsOf<Raw>(db, sql`select page.*, (${countSelect(f)}) as total
+    from (${registerSelect(f, sort, dir)} limit ${pageSize} offset ${(page - 1) * pageSize}) page`);
   // Past the last page the window has no row to carry the total: count once more, without paging.
   const total = rows.length ? Number(rows[0].total) : page > 1 ? await registerCount(db, f) : 0;
   return { items: rows.map(toRow), total };

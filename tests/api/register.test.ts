@@ -77,6 +77,14 @@ describe('the register at a past moment', () => {
     expect(await registerAt('2026-03-21T12:00:00Z', { view: 'known' }), 'the sweep noted C on 22 Mar').toEqual({ a: 'active', b: 'active', c: 'active', d: 'revoked' });
     expect(await registerAt('2026-03-22T09:00:00Z', { view: 'known' })).toMatchObject({ c: 'suspended' });
     expect(await registerAt('2026-03-27T12:00:00Z', { view: 'known' })).toMatchObject({ e: 'active', f: 'active' });
+    const known = await auditor.get('/api/register').query({ scopeId: s.scope.id, at: '2026-03-21T12:00:00Z', view: 'known', pageSize: 2 });
+    expect(known.body.total, 'the count follows the same reading').toBe(4);
+  });
+
+  it('when an end was moved later (a revocation), then "as recorded then" shows the end known at that moment', async () => {
+    const row = async (view: string) => (await auditor.get('/api/register').query({ personId: s.people.d.id, at: '2026-03-11T12:00:00Z', view })).body.items[0];
+    expect(await row('effective')).toMatchObject({ state: 'active', validUntil: '2026-03-15' });
+    expect(await row('known')).toMatchObject({ state: 'active', validUntil: '2026-06-02' });
   });
 
   it('when a row is shown, then it carries the dates of the period then, in the holder’s local days', async () => {

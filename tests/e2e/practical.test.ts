@@ -42,6 +42,9 @@ describe('a practical recorded at the bench in the browser', () => {
     await reading.fill('150');
     await volts.getByRole('combobox', { name: 'Instrument used' }).click({ force: true });
     await page.getByRole('option', { name: 'Ohmwerk DM 61 SN OW61-20417' }).click();
+    // Record only once the choice has landed in the field (a slow machine may still be closing the menu).
+    await volts.getByText('Ohmwerk DM 61 SN OW61-20417').first().waitFor();
+    await page.getByRole('listbox').waitFor({ state: 'detached' }).catch(() => undefined);
     await volts.getByRole('button', { name: 'Record the reading' }).click();
     const judged = volts.getByRole('complementary', { name: /Expected value and verdict/ });
     await judged.getByTestId('verdict').filter({ hasText: /^\s*Outside the rule: failed\s*$/ }).waitFor();
@@ -53,6 +56,8 @@ describe('a practical recorded at the bench in the browser', () => {
     await angle.getByLabel('Reading in °').fill('74,5');
     await angle.getByRole('combobox', { name: 'Instrument used' }).click({ force: true });
     await page.getByRole('option', { name: 'Brightline DP 70 SN BL70-5531' }).click();
+    await angle.getByText('Brightline DP 70 SN BL70-5531').first().waitFor();
+    await page.getByRole('listbox').waitFor({ state: 'detached' }).catch(() => undefined);
     await angle.getByRole('button', { name: 'Record the reading' }).click();
     await angle.getByTestId('verdict').filter({ hasText: /^\s*Within the rule: passed\s*$/ }).waitFor();
     expect(await page.getByTestId('progress').textContent()).toBe('1 of 4 complete');

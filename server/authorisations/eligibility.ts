@@ -19,14 +19,13 @@ export async function loadFacts(db: Executor, person: PersonRow, scopes: ScopeWi
   const ofKind = (kind: string) => [...new Set(scopes.flatMap((s) => s.requirements.filter((r) => r.kind === kind).map((r) => r.procedureId!)))];
   const [practicalIds, signoffIds] = [ofKind('practicals'), ofKind('checklist_signoff')];
   const procedureIds = [...new Set([...ofKind('procedure_ack'), ...practicalIds, ...signoffIds])];
-  const [certificates, acks, periods, practicals, signoffs, thresholds] = await Promise.all([
-    certificatesOf(db, [person.id]),
-    ackFacts(db, person.id, procedureIds),
-    latestPeriods(db, { holderIds: [person.id] }, now),
-    competentPracticals(db, person.id, practicalIds),
-    countersignedSignoffs(db, person.id, signoffIds),
-    inForceThresholds(db, [...practicalIds, ...signoffIds]),
-  ]);
+  // One after another: inside a transaction they share one connection, which takes one query at a time.
+  const certificates = await certificatesOf(db, [person.id]);
+  const acks = await ackFacts(db, person.id, procedureIds);
+  const periods = await latestPeriods(db, { holderIds: [person.id] }, now);
+  const practicals = await competentPracticals(db, person.id, practicalIds);
+  const signoffs = await countersignedSignoffs(db, person.id, signoffIds);
+  const thresholds = await inForceThresholds(db, [...practicalIds, ...signoffIds]);
   const events = await eventsOf(db, periods.map((p) => p.id));
   const standings = new Map<string, Standing>();
   for (const p of periods) standings.set(p.scopeId, { authorisationId: p.authorisationId, period: p, events: events.filter((e) => e.periodId === p.id) });

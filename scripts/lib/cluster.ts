@@ -79,31 +79,59 @@ export function initCluster(bin: string, dataDir: string): boolean {
   return true;
 }
 
-function isRunning(bin: string, dataDir: string): boolean {
-  const exe = path.join(bin, 'pg_ctl');
-  const args = ['-D', dataDir, 'status'];
-  const r = isRoot ? spawnSync('runuser', ['-u', 'postgres', '--', exe, ...args], { cwd: '/' }) : spawnSync(exe, args, { cwd: '/' });
-  return r.status === 0;
+/** The postmaster named in the pid file, when it is alive (a zombie left by SIGKILL is not). */
+function livePostmaster(dataDir: string): number | undefined {
+  const pidFile = path.join(dataDir, 'postmaster.pid');
+  if (!existsSync(pidFile)) return undefined;
+  const pid = Number(readFileSync(pidFile, 'utf8').split('\n')[0]);
+  if (!Number.isInteger(pid) || pid <= 0) return undefined;
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    // "pid (comm) state …": comm may hold spaces, so read around the last parenthesis.
+    const comm = stat.slice(stat.indexOf('(') + 1, stat.lastIndexOf(')'));
+    const state = stat.slice(stat.lastIndexOf(')') + 2, stat.lastIndexOf(')') + 3);
+    if (comm !== 'postgres' || state === 'Z' || state === 'X') return undefined;
+    return pid;
+  } catch {
+    return undefined;
+  }
 }
 
-/** A pid file left by a killed server whose pid now belongs to another program is removed. */
+export function isRunning(dataDir: string): boolean {
+  return livePostmaster(dataDir) !== undefined;
+}
+
+/** A pid file left by a killed server (gone, a zombie, or a pid now used by another program) is removed. */
 function clearStalePidFile(dataDir: string): void {
   const pidFile = path.join(dataDir, 'postmaster.pid');
-  if (!existsSync(pidFile)) return;
-  const pid = Number(readFileSync(pidFile, 'utf8').split('\n')[0]);
-  let comm = '';
-  try {
-    comm = readFileSync(`/proc/${pid}/comm`, 'utf8').trim();
-  } catch {
-    comm = '';
+  if (existsSync(pidFile) && !isRunning(dataDir)) rmSync(pidFile, { force: true });
+}
+
+/** Waits until the server on the port takes connections (crash recovery may take a while). */
+async function waitUntilAccepting(port: number, timeoutMs: number): Promise<void> {
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const client = new pg.Client({ host: '127.0.0.1', port, user: 'postgres', database: 'postgres' });
+    try {
+      await client.connect();
+      await client.query('select 1');
+      await client.end();
+      return;
+    } catch (err) {
+      await client.end().catch(() => undefined);
+      if (Date.now() > until) throw new Error(`PostgreSQL on 127.0.0.1:${port} does not take connections: ${(err as Error).message}`);
+      await new Promise((r) => setTimeout(r, 250));
+    }
   }
-  if (comm !== 'postgres') rmSync(pidFile, { force: true });
 }
 
 export async function startCluster(bin: string, dataDir: string, port: number): Promise<void> {
-  if (isRunning(bin, dataDir)) {
+  if (isRunning(dataDir)) {
     const pidPort = Number(readFileSync(path.join(dataDir, 'postmaster.pid'), 'utf8').split('\n')[3]);
-    if (pidPort === port) return;
+    if (pidPort === port) {
+      await waitUntilAccepting(port, 60_000);
+      return;
+    }
     stopCluster(bin, dataDir);
   }
   clearStalePidFile(dataDir);
@@ -112,17 +140,18 @@ export async function startCluster(bin: string, dataDir: string, port: number): 
   for (let attempt = 1; ; attempt++) {
     try {
       pgRun(bin, 'pg_ctl', ['-D', dataDir, '-l', logFile, '-o', `-p ${port}`, '-w', '-t', '60', 'start']);
-      return;
+      break;
     } catch (err) {
       if (attempt >= 10) throw err;
       clearStalePidFile(dataDir);
       await new Promise((r) => setTimeout(r, 1000));
     }
   }
+  await waitUntilAccepting(port, 60_000);
 }
 
 export function stopCluster(bin: string, dataDir: string): void {
-  if (!isRunning(bin, dataDir)) return;
+  if (!isRunning(dataDir)) return;
   pgRun(bin, 'pg_ctl', ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
 }
 

@@ -1,7 +1,7 @@
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import path from 'node:path';
-import { ensureDatabase, findPostgresBin, initCluster, resolveDataDir, startCluster, stopCluster } from './cluster.js';
+import { ensureDatabase, findPostgresBin, initCluster, isRunning, resolveDataDir, startCluster, stopCluster } from './cluster.js';
 import { isPortFree, portOrFree } from './ports.js';
 
 export interface LocalDb {
@@ -22,7 +22,7 @@ export async function localDatabase(root: string, dataRoot: string, log: (s: str
   const portFile = path.join(dataRoot, 'pg-port');
   const stored = existsSync(portFile) ? Number(readFileSync(portFile, 'utf8')) : undefined;
   let port = Number(process.env.PGPORT ?? stored ?? DEFAULT_PG_PORT);
-  const running = existsSync(path.join(dir, 'postmaster.pid'));
+  const running = isRunning(dir);
   if (!running && !(await isPortFree(port))) port = await portOrFree(DEFAULT_PG_PORT);
   writeFileSync(portFile, String(port));
   await startCluster(bin, dir, port);

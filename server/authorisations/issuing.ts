@@ -2,7 +2,7 @@ import type { Executor } from '../db/client.js';
 import { notFound } from '../errors.js';
 import { lockPerson, type PersonRow } from './facts.repository.js';
 import { scopesWithRequirements, type ScopeWithRequirements } from './scopes.repository.js';
-import { ensureAuthorisation, insertPeriod, setPeriodEnd } from './periods.repository.js';
+import { ensureAuthorisation, insertPeriod } from './periods.repository.js';
 import { loadFacts, prerequisiteOrder, type Standing } from './eligibility.js';
 import { evaluateScope, type EvaluationFacts, type RequirementResult } from './requirements.js';
 import { allMet, capsFor, freshSince, isFresh, plannedEnd, whatSetsTheEnd, windowStart } from './caps.js';
@@ -78,7 +78,8 @@ async function renewIfDue(w: Writer, person: PersonRow, scope: ScopeWithRequirem
   const caps = capsFor(scope, 'renewed', results);
   const end = plannedEnd(validity, caps, w.now);
   if (end <= st.period.endsAt) return undefined;
-  await setPeriodEnd(w.tx, st.period.id, w.now);
+  // The old period ends where the new one starts; the moved end goes to the audit trail like any other.
+  await w.moveEnd(st, w.now, 'Renewed: the new period starts now.');
   return open(w, scope, st.authorisationId, person, results, { origin: 'renewed', previousPeriodId: st.period.id, validityEndsAt: validity, endsAt: end, caps });
 }
 

@@ -80,5 +80,12 @@ describe('renewal', () => {
     expect(periods.map((p) => p.events[0].kind)).toEqual(['renewed', 'issued']);
     expect(periods[1]).toMatchObject({ id: first.periodId, validUntil: '2027-01-20', endsAt: '2027-01-20T09:00:00.000Z' });
     expect((await stateAt(t.deps.db, { personId: tech.id, scopeId: scope.id }, new Date('2026-12-01T00:00:00Z'))).period?.id, 'history answers for before the renewal').toBe(first.periodId);
+    // The first period ran to the end of 2 March 2027 on the site's clock (Central European Time, UTC+1).
+    const moved = await t.ownerQuery(
+      `select old_values->>'endsAt' as before, new_values->>'endsAt' as after, new_values->>'reason' as reason from audit_log
+       where action = 'authorisation.expiry_changed' and entity_id = $1`, [first.periodId]);
+    expect(moved.rows, 'cutting the old period short is in the audit trail').toEqual([
+      { before: '2027-03-02T23:00:00.000Z', after: '2027-01-20T09:00:00.000Z', reason: 'Renewed: the new period starts now.' },
+    ]);
   });
 });

@@ -26,9 +26,11 @@ export async function reviewsDueWithin(db: Executor, now: Date, days: number) {
 }
 
 /** Records the reminders to be sent; one already recorded for the same (version, manager, offset) stays as it is. */
-export async function recordReminders(db: Executor, rows: (typeof procedureReviewReminders.$inferInsert)[]) {
-  if (!rows.length) return;
-  await db.insert(procedureReviewReminders).values(rows).onConflictDoNothing();
+/** Records the reminders not yet recorded; returns how many were new. */
+export async function recordReminders(db: Executor, rows: (typeof procedureReviewReminders.$inferInsert)[]): Promise<number> {
+  if (!rows.length) return 0;
+  const added = await db.insert(procedureReviewReminders).values(rows).onConflictDoNothing().returning({ id: procedureReviewReminders.id });
+  return added.length;
 }
 
 /**

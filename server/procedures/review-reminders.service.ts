@@ -21,8 +21,11 @@ export function makeReviewReminders(deps: Deps) {
       return offset === undefined ? [] : [{ versionId: d.versionId, managerId: d.managerId, offsetDays: offset, reviewDueOn: d.reviewDueOn, createdAt: now }];
     });
     await db.transaction(async (tx) => {
-      await rem.recordReminders(tx, rows);
-      await audit(tx, { actorId: actor?.id ?? null, action: 'procedure.review_sweep', entity: 'procedure_review_reminders', entityId: 'sweep', newValues: { offsets: sorted, candidates: rows.length } });
+      const added = await rem.recordReminders(tx, rows);
+      // The scheduled run is in the trail only when it recorded something; a run a person asked for always is.
+      if (added || actor) {
+        await audit(tx, { actorId: actor?.id ?? null, action: 'procedure.review_sweep', entity: 'procedure_review_reminders', entityId: 'sweep', newValues: { offsets: sorted, candidates: rows.length, recorded: added } });
+      }
     });
     const claimed = await rem.claimUnsent(db, now, new Date(now.getTime() - STALE_CLAIM_MS));
     let sent = 0;

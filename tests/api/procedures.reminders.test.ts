@@ -112,6 +112,22 @@ describe('review-due reminders', () => {
     }
   });
 
+  it('when the scheduled run finds nothing new, then it leaves no entry in the audit trail; when it records reminders, then one entry says how many', async () => {
+    const sweeps = async () => (await t.ownerQuery(`select new_values from audit_log where action = 'procedure.review_sweep' and actor_id is null order by id`)).rows.map((r) => r.new_values);
+    const before = (await sweeps()).length;
+    t.clock.set('2026-03-02T09:30:00Z');
+    await t.services.procedures.reminders.run(null, [30, 7, 0]);
+    await t.services.procedures.reminders.run(null, [30, 7, 0]);
+    expect((await sweeps()).length, 'nothing due: nothing written').toBe(before);
+    await publishNew(manager, manager2, { reviewPeriodMonths: 1 }, 'REM-TRAIL-1');
+    t.clock.set('2026-03-05T09:00:00Z');
+    await t.services.procedures.reminders.run(null, [30, 7, 0]);
+    await t.services.procedures.reminders.run(null, [30, 7, 0]);
+    const after = await sweeps();
+    expect(after.length).toBe(before + 1);
+    expect(after.at(-1)).toMatchObject({ recorded: 1 });
+  });
+
   it('when a technician asks for a sweep, then 403', async () => {
     expect((await tech.post('/api/procedures/review-reminders/run').send({})).status).toBe(403);
   });

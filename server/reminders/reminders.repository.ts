@@ -22,8 +22,9 @@ const insertSend = sql`insert into reminder_sends (period_id, certificate_id, of
  */
 export async function planSends(db: Executor, now: Date): Promise<number> {
   const t = sql`${now.toISOString()}::timestamptz`;
-  const results = await Promise.all([
-    db.execute(sql`${insertSend}
+  // One statement at a time: on a transaction's connection, statements cannot overlap.
+  const statements = [
+    sql`${insertSend}
       select p.id, null, o.d, r.id, r.role, p.ends_at - make_interval(days => o.d), 'pending', 0, ${t}, ${t}
       from authorisation_periods p
       join scopes s on s.id = p.scope_id
@@ -31,16 +32,16 @@ export async function planSends(db: Executor, now: Date): Promise<number> {
       cross join lateral (select min(d) as d from unnest(s.reminder_offsets_days) d where p.ends_at - make_interval(days => d) <= ${t}) o
       cross join lateral (${recipients(sql`h`)}) r
       where p.starts_at <= ${t} and p.ends_at > ${t} and p.ends_at <= ${t} + interval '366 days' and o.d is not null
-      on conflict do nothing`),
-    db.execute(sql`${insertSend}
+      on conflict do nothing`,
+    sql`${insertSend}
       select p.id, null, 0, r.id, r.role, p.ends_at, 'pending', 0, ${t}, ${t}
       from authorisation_events e
       join authorisation_periods p on p.id = e.period_id
       join users h on h.id = p.holder_id
       cross join lateral (${recipients(sql`h`)}) r
       where e.kind = 'lapsed' and e.effective_at <= ${t} and e.effective_at > ${t} - interval '30 days'
-      on conflict do nothing`),
-    db.execute(sql`${insertSend}
+      on conflict do nothing`,
+    sql`${insertSend}
       select null, c.id, o.d, r.id, r.role, c.valid_until - make_interval(days => o.d), 'pending', 0, ${t}, ${t}
       from external_certificates c
       join users h on h.id = c.holder_id
@@ -54,8 +55,8 @@ export async function planSends(db: Executor, now: Date): Promise<number> {
       cross join lateral (${recipients(sql`h`)}) r
       where c.status = 'verified' and c.valid_until > ${t} and c.valid_until <= ${t} + interval '366 days' and o.d is not null
         and not exists (select 1 from external_certificates n where n.holder_id = c.holder_id and n.kind = c.kind and n.status = 'verified' and n.valid_until > c.valid_until)
-      on conflict do nothing`),
-    db.execute(sql`${insertSend}
+      on conflict do nothing`,
+    sql`${insertSend}
       select null, c.id, 0, r.id, r.role, c.valid_until, 'pending', 0, ${t}, ${t}
       from external_certificates c
       join users h on h.id = c.holder_id
@@ -64,9 +65,23 @@ export async function planSends(db: Executor, now: Date): Promise<number> {
         and not exists (select 1 from external_certificates n where n.holder_id = c.holder_id and n.kind = c.kind and n.status = 'verified' and n.valid_until > c.valid_until)
         and exists (select 1 from authorisation_periods p join scope_requirements q on q.scope_id = p.scope_id and q.kind = 'certificate' and q.certificate_kind = c.kind
           where p.holder_id = c.holder_id and p.starts_at <= ${t} and p.ends_at > ${t})
-      on conflict do nothing`),
-  ]);
+      on conflict do nothing`,
+  ];
+  const results = [];
+  for (const statement of statements) results.push(await db.execute(statement));
   return results.reduce<number>((n, r) => n + ((r as unknown as { rowCount: number | null }).rowCount ?? 0), 0);
+}
+
+/**
+ * Pending reminders about an end that has moved since they were planned (the due moment no longer
+ * matches the period's end less the offset) are cancelled; planning records the new end's own.
+ */
+export async function cancelMoved(db: Executor): Promise<number> {
+  const r = await db.execute(sql`update reminder_sends s set status = 'cancelled'
+    from authorisation_periods p
+    where s.period_id = p.id and s.status = 'pending' and s.offset_days > 0
+      and s.due_at <> p.ends_at - make_interval(days => s.offset_days)`);
+  return (r as unknown as { rowCount: number | null }).rowCount ?? 0;
 }
 
 /** Takes due sends no other worker holds: a send is in one worker's hands at a time, until its transaction ends. */

@@ -40,6 +40,7 @@ export function makeReminders(deps: Deps) {
 
   async function plan(): Promise<number> {
     return db.transaction(async (tx) => {
+      await repo.cancelMoved(tx);
       const n = await repo.planSends(tx, clock.now());
       if (n) await audit(tx, { actorId: null, action: 'reminders.planned', entity: 'reminder_sends', entityId: clock.now().toISOString(), newValues: { count: n } });
       return n;

@@ -73,6 +73,51 @@ describe('exactly-once reminders with two server processes', () => {
   });
 });
 
+describe('an end that moves', () => {
+  it('when the end a reminder was sent for moves later, then the offset is reminded again for the new end, once', async () => {
+    await t.stopSecondWorkers();
+    t.clock.set('2026-03-02T09:00:00Z');
+    const scope = await makeScope(manager, { title: 'Motor controller live fault-finding (moved end)', reminderOffsetsDays: [30], validityMonths: 12, requirements: [{ kind: 'certificate', certificateKind: 'first_aid_cpr' }] });
+    const tech = await newPerson(app());
+    // The certificate runs out on 30 Sep 2026, before the twelve months: the period ends with it.
+    await verifyCertificate(manager, await submitCertificate(tech, { issuedOn: '2025-09-30', expiresOn: '2026-09-30' }), DEMO_PASSWORD);
+    const ours = async () => (await Promise.all(t.mails().map(parseEml))).filter((m) => m.subject.includes(scope.title) && m.to === tech.email).map((m) => m.subject).sort();
+    t.clock.set('2026-09-05T09:00:00Z');
+    await t.services.reminders.sweep();
+    expect(await ours()).toEqual([`Your authorisation “${scope.title}” lapses on 30 Sept 2026`]);
+
+    // A renewed certificate is verified: the same period runs to the end of its validity again.
+    t.clock.set('2026-09-10T09:00:00Z');
+    await verifyCertificate(manager, await submitCertificate(tech, { issuedOn: '2026-09-09', expiresOn: '2028-09-09' }), DEMO_PASSWORD);
+    await t.services.reminders.sweep();
+    expect((await ours()).length, 'nothing new to say yet').toBe(1);
+
+    t.clock.set('2027-02-05T09:00:00Z');
+    await t.services.reminders.sweep();
+    await t.services.reminders.sweep();
+    expect(await ours()).toEqual([`Your authorisation “${scope.title}” lapses on 2 Mar 2027`, `Your authorisation “${scope.title}” lapses on 30 Sept 2026`]);
+    const periods = (await t.ownerQuery(`select distinct r.period_id from reminder_sends r join authorisation_periods p on p.id = r.period_id where p.scope_id = $1`, [scope.id])).rows;
+    expect(periods.length, 'both reminders are about the one period').toBe(1);
+  });
+
+  it('when the end moves before a planned reminder is delivered, then that reminder is cancelled rather than sent with the wrong date', async () => {
+    t.clock.set('2026-03-02T09:00:00Z');
+    const scope = await makeScope(manager, { title: 'Dimmer pack repair (pending reminder)', reminderOffsetsDays: [30], validityMonths: 12, requirements: [{ kind: 'certificate', certificateKind: 'first_aid_cpr' }] });
+    const tech = await newPerson(app());
+    await verifyCertificate(manager, await submitCertificate(tech, { issuedOn: '2025-09-30', expiresOn: '2026-09-30' }), DEMO_PASSWORD);
+    t.clock.set('2026-09-05T09:00:00Z');
+    t.transport.failing = true;
+    await t.services.reminders.sweep();
+    t.transport.failing = false;
+    t.clock.set('2026-09-06T09:00:00Z');
+    await verifyCertificate(manager, await submitCertificate(tech, { issuedOn: '2026-09-05', expiresOn: '2028-09-05' }), DEMO_PASSWORD);
+    await t.services.reminders.sweep();
+    const rows = (await t.ownerQuery(`select r.status from reminder_sends r join authorisation_periods p on p.id = r.period_id where p.scope_id = $1`, [scope.id])).rows;
+    expect(rows.map((r) => r.status)).toEqual(['cancelled', 'cancelled']);
+    expect((await Promise.all(t.mails().map(parseEml))).filter((m) => m.subject.includes(scope.title))).toEqual([]);
+  });
+});
+
 describe('a transport that fails', () => {
   it('when the mail server refuses, then the reminder stays pending with its error and is never marked sent; once it works, it is sent once', async () => {
     await t.stopSecondWorkers();

@@ -166,8 +166,10 @@ export const authorisationEvents = pgTable('authorisation_events', {
 ]);
 
 /**
- * One reminder or lapse notice per (period or certificate, offset in days, recipient): the unique key is
- * what makes a send happen once however many workers sweep. Pending rows are retried with back-off.
+ * One reminder or lapse notice per (period or certificate, offset in days, recipient, due moment): the
+ * unique key is what makes a send happen once however many workers sweep. The due moment is the end
+ * less the offset, so when an end moves (a certificate it rests on runs out sooner, or is renewed) the
+ * offsets are reminded again for the new end, and once only. Pending rows are retried with back-off.
  */
 export const reminderSends = pgTable('reminder_sends', {
   id: uuid('id').primaryKey().defaultRandom(),
@@ -186,7 +188,7 @@ export const reminderSends = pgTable('reminder_sends', {
   mailId: uuid('mail_id'),
   createdAt: ts('created_at').notNull(),
 }, (t) => [
-  uniqueIndex('reminder_sends_once_uq').on(sql`coalesce(${t.periodId}, ${t.certificateId})`, t.offsetDays, t.recipientId),
+  uniqueIndex('reminder_sends_once_uq').on(sql`coalesce(${t.periodId}, ${t.certificateId})`, t.offsetDays, t.recipientId, t.dueAt),
   index('reminder_sends_pending_idx').on(t.nextAttemptAt).where(sql`${t.status} = 'pending'`),
   index('reminder_sends_recipient_idx').on(t.recipientId, t.createdAt),
   check('reminder_sends_subject_ck', sql`num_nonnulls(${t.periodId}, ${t.certificateId}) = 1`),

@@ -1,0 +1,2 @@
+DROP INDEX "reminder_sends_once_uq";--> statement-breakpoint
+CREATE UNIQUE INDEX "reminder_sends_once_uq" ON "reminder_sends" USING btree (coalesce("period_id", "certificate_id"),"offset_days","recipient_id","due_at");

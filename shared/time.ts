@@ -1,8 +1,18 @@
 // Site-local calendar arithmetic with Intl only, so it runs the same in the browser and on the server.
 
+// Building an Intl.DateTimeFormat costs far more than using one: each (kind, zone) is built once.
+const formatters = new Map<string, Intl.DateTimeFormat>();
+/** A cached formatter for a fixed set of options and one zone (the options must not vary per call under one kind). */
+export function cachedFormat(kind: string, locale: string, options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
+  const key = `${kind}|${options.timeZone ?? ''}`;
+  let f = formatters.get(key);
+  if (!f) formatters.set(key, (f = new Intl.DateTimeFormat(locale, options)));
+  return f;
+}
+
 /** Offset of `tz` from UTC at the instant `at`, in milliseconds (positive east of Greenwich). */
 export function zoneOffsetMs(at: Date, tz: string): number {
-  const parts = new Intl.DateTimeFormat('en-GB', {
+  const parts = cachedFormat('offset', 'en-GB', {
     timeZone: tz, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit',
   }).formatToParts(at);
   const get = (t: string) => Number(parts.find((p) => p.type === t)?.value);
@@ -28,7 +38,7 @@ export function endOfLocalDay(isoDate: string, tz: string): Date {
 
 /** The calendar date (YYYY-MM-DD) of an instant in `tz`. */
 export function localDate(at: Date, tz: string): string {
-  return new Intl.DateTimeFormat('en-CA', { timeZone: tz, year: 'numeric', month: '2-digit', day: '2-digit' }).format(at);
+  return cachedFormat('date', 'en-CA', { timeZone: tz, year: 'numeric', month: '2-digit', day: '2-digit' }).format(at);
 }
 
 export function isValidTimeZone(tz: string): boolean {
@@ -42,7 +52,7 @@ export function isValidTimeZone(tz: string): boolean {
 
 /** For display: date and time in the site's zone, with the zone's short name. */
 export function formatInZone(at: Date | string, tz: string): string {
-  return new Intl.DateTimeFormat('en-GB', {
+  return cachedFormat('stamp', 'en-GB', {
     timeZone: tz, year: 'numeric', month: 'short', day: '2-digit', hour: '2-digit', minute: '2-digit', timeZoneName: 'short',
   }).format(new Date(at));
 }

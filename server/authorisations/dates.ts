@@ -1,4 +1,4 @@
-import { endOfLocalDay, localDate, startOfLocalDay } from '../../shared/time.js';
+import { cachedFormat, endOfLocalDay, localDate, startOfLocalDay } from '../../shared/time.js';
 
 export const DAY_MS = 86_400_000;
 
@@ -37,5 +37,5 @@ export { endOfLocalDay, startOfLocalDay, localDate };
 /** "2 Mar 2027" for e-mails and PDFs, read in the site's zone. */
 export function formatDay(isoDate: string): string {
   const [y, m, d] = isoDate.split('-').map(Number);
-  return new Intl.DateTimeFormat('en-GB', { timeZone: 'UTC', day: 'numeric', month: 'short', year: 'numeric' }).format(new Date(Date.UTC(y, m - 1, d)));
+  return cachedFormat('day', 'en-GB', { timeZone: 'UTC', day: 'numeric', month: 'short', year: 'numeric' }).format(new Date(Date.UTC(y, m - 1, d)));
 }

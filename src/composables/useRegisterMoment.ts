@@ -1,6 +1,6 @@
 import { computed, ref, watch } from 'vue';
 import { useRoute, useRouter } from 'vue-router';
-import { localDate, zoneOffsetMs } from '@shared/time';
+import { cachedFormat, localDate, zoneOffsetMs } from '@shared/time';
 import type { RegisterView } from '@shared/register/kinds';
 import { useSiteTime } from './useSiteTime';
 
@@ -14,7 +14,7 @@ export function instantIn(date: string, time: string, tz: string): Date {
   return new Date(t);
 }
 
-const hhmm = (at: Date, tz: string) => new Intl.DateTimeFormat('en-GB', { timeZone: tz, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).format(at);
+const hhmm = (at: Date, tz: string) => cachedFormat('hhmm', 'en-GB', { timeZone: tz, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).format(at);
 
 /**
  * The moment a register page stands for, kept in the address (?at=…&view=…) so it can be shared and survives

@@ -13,8 +13,9 @@ pg.types.setTypeParser(1082, (v) => v);
 
 /** The application's pool: every connection acts as breakover_app, which may not alter the audit trail. */
 export function createPool(url: string, max = 10): pg.Pool {
-  // A startup parameter, so the role is in force before the first query on every connection.
-  return new pg.Pool({ connectionString: url, max, options: '-c role=breakover_app' });
+  // Startup parameters, in force before the first query on every connection: the role, and UTC for the
+  // session, so interval arithmetic (an end less N days) is the same whatever the server's default zone.
+  return new pg.Pool({ connectionString: url, max, options: '-c role=breakover_app -c TimeZone=UTC' });
 }
 
 export function createDatabase(pool: pg.Pool): Database {

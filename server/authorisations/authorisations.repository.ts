@@ -24,6 +24,11 @@ export async function summaryOf(db: Executor, id: string): Promise<SummaryRow | 
   return row;
 }
 
+/** Several authorisations' summaries in one query. */
+export async function summariesOf(db: Executor, ids: string[]): Promise<SummaryRow[]> {
+  return ids.length ? summaries(db).where(inArray(authorisations.id, ids)) : [];
+}
+
 export async function summariesOfHolder(db: Executor, holderId: string): Promise<SummaryRow[]> {
   return summaries(db).where(eq(authorisations.holderId, holderId)).orderBy(asc(scopes.code));
 }

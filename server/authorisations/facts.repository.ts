@@ -29,6 +29,10 @@ export async function findPerson(db: Executor, id: string): Promise<PersonRow | 
   return row;
 }
 
+export async function findPeople(db: Executor, ids: string[]): Promise<PersonRow[]> {
+  return ids.length ? db.select(personColumns).from(users).innerJoin(sites, eq(sites.id, users.siteId)).where(inArray(users.id, ids)) : [];
+}
+
 export interface AckFact {
   procedureId: string;
   code: string;
@@ -37,36 +41,41 @@ export interface AckFact {
   request: { dueOn: string; changeClass: string } | null;
 }
 
-/** For each procedure: the version in force, the person's newest acknowledgement, and any re-read asked of them. */
-export async function ackFacts(db: Executor, userId: string, procedureIds: string[]): Promise<Map<string, AckFact>> {
-  const out = new Map<string, AckFact>();
-  if (!procedureIds.length) return out;
+/**
+ * For each person and procedure: the version in force, the person's newest acknowledgement, and any
+ * re-read asked of them. Three queries whatever the number of people.
+ */
+export async function ackFacts(db: Executor, userIds: string[], procedureIds: string[]): Promise<Map<string, Map<string, AckFact>>> {
+  const byUser = new Map(userIds.map((u) => [u, new Map<string, AckFact>()]));
+  if (!procedureIds.length || !userIds.length) return byUser;
   const inForce = await db
     .select({ procedureId: procedures.id, code: procedures.code, versionId: procedureVersions.id, number: procedureVersions.number, ackFrom: procedureVersions.ackFromNumber, title: procedureVersions.title })
     .from(procedures)
     .leftJoin(procedureVersions, and(eq(procedureVersions.procedureId, procedures.id), eq(procedureVersions.status, 'published')))
     .where(inArray(procedures.id, procedureIds));
   const acks = await db
-    .selectDistinctOn([procedureAcknowledgements.procedureId], { procedureId: procedureAcknowledgements.procedureId, id: procedureAcknowledgements.id, number: procedureAcknowledgements.versionNumber, at: procedureAcknowledgements.acknowledgedAt })
+    .selectDistinctOn([procedureAcknowledgements.userId, procedureAcknowledgements.procedureId], { userId: procedureAcknowledgements.userId, procedureId: procedureAcknowledgements.procedureId, id: procedureAcknowledgements.id, number: procedureAcknowledgements.versionNumber, at: procedureAcknowledgements.acknowledgedAt })
     .from(procedureAcknowledgements)
-    .where(and(eq(procedureAcknowledgements.userId, userId), inArray(procedureAcknowledgements.procedureId, procedureIds)))
-    .orderBy(procedureAcknowledgements.procedureId, desc(procedureAcknowledgements.versionNumber));
+    .where(and(inArray(procedureAcknowledgements.userId, userIds), inArray(procedureAcknowledgements.procedureId, procedureIds)))
+    .orderBy(procedureAcknowledgements.userId, procedureAcknowledgements.procedureId, desc(procedureAcknowledgements.versionNumber));
   const versionIds = inForce.map((v) => v.versionId).filter((v): v is string => !!v);
   const requests = versionIds.length
-    ? await db.select({ versionId: procedureRereadRequests.versionId, dueOn: procedureRereadRequests.dueOn, changeClass: procedureRereadRequests.changeClass })
-      .from(procedureRereadRequests).where(and(eq(procedureRereadRequests.userId, userId), inArray(procedureRereadRequests.versionId, versionIds)))
+    ? await db.select({ userId: procedureRereadRequests.userId, versionId: procedureRereadRequests.versionId, dueOn: procedureRereadRequests.dueOn, changeClass: procedureRereadRequests.changeClass })
+      .from(procedureRereadRequests).where(and(inArray(procedureRereadRequests.userId, userIds), inArray(procedureRereadRequests.versionId, versionIds)))
     : [];
-  for (const v of inForce) {
-    const ack = acks.find((a) => a.procedureId === v.procedureId);
-    const req = requests.find((r) => r.versionId === v.versionId);
-    out.set(v.procedureId, {
-      procedureId: v.procedureId, code: v.code,
-      inForce: v.versionId ? { versionId: v.versionId, number: v.number!, ackFromNumber: v.ackFrom ?? v.number!, title: v.title! } : null,
-      latest: ack ? { id: ack.id, number: ack.number, at: ack.at } : null,
-      request: req ? { dueOn: req.dueOn, changeClass: req.changeClass } : null,
-    });
+  for (const [userId, out] of byUser) {
+    for (const v of inForce) {
+      const ack = acks.find((a) => a.userId === userId && a.procedureId === v.procedureId);
+      const req = requests.find((r) => r.userId === userId && r.versionId === v.versionId);
+      out.set(v.procedureId, {
+        procedureId: v.procedureId, code: v.code,
+        inForce: v.versionId ? { versionId: v.versionId, number: v.number!, ackFromNumber: v.ackFrom ?? v.number!, title: v.title! } : null,
+        latest: ack ? { id: ack.id, number: ack.number, at: ack.at } : null,
+        request: req ? { dueOn: req.dueOn, changeClass: req.changeClass } : null,
+      });
+    }
   }
-  return out;
+  return byUser;
 }
 
 /** Managers of a site (its own and those covering it), active: who hears about its people's authorisations. */

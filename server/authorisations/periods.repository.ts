@@ -44,6 +44,10 @@ export async function findPeriod(db: Executor, id: string): Promise<PeriodRow | 
   return row;
 }
 
+export async function findPeriods(db: Executor, ids: string[]): Promise<PeriodRow[]> {
+  return ids.length ? db.select(periodColumns).from(authorisationPeriods).where(inArray(authorisationPeriods.id, ids)) : [];
+}
+
 export async function findPeriodByCode(db: Executor, code: string): Promise<PeriodRow | undefined> {
   const [row] = await db.select(periodColumns).from(authorisationPeriods).where(eq(authorisationPeriods.verificationCode, code));
   return row;

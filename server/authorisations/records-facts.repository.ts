@@ -5,6 +5,8 @@ import { practicals, procedureVersions, signoffs, users } from '../db/schema/ind
 
 export interface RecordFact {
   id: string;
+  /** Whose record it is. */
+  personId: string;
   procedureId: string;
   versionNumber: number;
   /** When the work was done (practical held) or signed (sign-off submitted). */
@@ -17,35 +19,35 @@ export interface RecordFact {
 const assessor = alias(users, 'assessor');
 
 /** The person's competent practicals with both signatures, except those replaced by a signed correction. */
-export async function competentPracticals(db: Executor, userId: string, procedureIds: string[]): Promise<RecordFact[]> {
-  if (!procedureIds.length) return [];
+export async function competentPracticals(db: Executor, userIds: string[], procedureIds: string[]): Promise<RecordFact[]> {
+  if (!procedureIds.length || !userIds.length) return [];
   return db
     .select({
-      id: practicals.id, procedureId: practicals.procedureId, versionNumber: procedureVersions.number, heldAt: practicals.heldAt,
+      id: practicals.id, personId: practicals.technicianId, procedureId: practicals.procedureId, versionNumber: procedureVersions.number, heldAt: practicals.heldAt,
       completedAt: sql<Date>`${practicals.acknowledgedAt}`.mapWith(practicals.acknowledgedAt), byName: assessor.name,
     })
     .from(practicals)
     .innerJoin(procedureVersions, eq(procedureVersions.id, practicals.versionId))
     .innerJoin(assessor, eq(assessor.id, practicals.assessorId))
     .where(and(
-      eq(practicals.technicianId, userId), inArray(practicals.procedureId, procedureIds), eq(practicals.outcome, 'competent'), eq(practicals.status, 'acknowledged'),
+      inArray(practicals.technicianId, userIds), inArray(practicals.procedureId, procedureIds), eq(practicals.outcome, 'competent'), eq(practicals.status, 'acknowledged'),
       sql`not exists (select 1 from practicals c where c.corrects_id = ${practicals.id} and c.status <> 'in_progress')`,
     ));
 }
 
 /** The person's self sign-offs countersigned by an assessor, except those replaced by a signed correction. */
-export async function countersignedSignoffs(db: Executor, userId: string, procedureIds: string[]): Promise<RecordFact[]> {
-  if (!procedureIds.length) return [];
+export async function countersignedSignoffs(db: Executor, userIds: string[], procedureIds: string[]): Promise<RecordFact[]> {
+  if (!procedureIds.length || !userIds.length) return [];
   return db
     .select({
-      id: signoffs.id, procedureId: signoffs.procedureId, versionNumber: procedureVersions.number,
+      id: signoffs.id, personId: signoffs.personId, procedureId: signoffs.procedureId, versionNumber: procedureVersions.number,
       heldAt: sql<Date>`${signoffs.submittedAt}`.mapWith(signoffs.submittedAt), completedAt: sql<Date>`${signoffs.reviewedAt}`.mapWith(signoffs.reviewedAt), byName: assessor.name,
     })
     .from(signoffs)
     .innerJoin(procedureVersions, eq(procedureVersions.id, signoffs.versionId))
     .innerJoin(assessor, eq(assessor.id, signoffs.reviewedBy))
     .where(and(
-      eq(signoffs.personId, userId), inArray(signoffs.procedureId, procedureIds), eq(signoffs.kind, 'self-sign-off'), eq(signoffs.status, 'countersigned'),
+      inArray(signoffs.personId, userIds), inArray(signoffs.procedureId, procedureIds), eq(signoffs.kind, 'self-sign-off'), eq(signoffs.status, 'countersigned'),
       sql`not exists (select 1 from signoffs c where c.corrects_id = ${signoffs.id} and c.status not in ('in_progress', 'returned'))`,
     ));
 }

@@ -9,6 +9,10 @@ export async function insertMailLog(db: Executor, row: MailLogInsert) {
   return created;
 }
 
+export async function insertMailLogs(db: Executor, rows: MailLogInsert[]) {
+  if (rows.length) await db.insert(mailLog).values(rows);
+}
+
 export async function listMailLog(db: Executor, page: number, pageSize: number) {
   const items = await db.select().from(mailLog).orderBy(desc(mailLog.createdAt)).limit(pageSize).offset((page - 1) * pageSize);
   const [{ total }] = await db.select({ total: count() }).from(mailLog);

@@ -22,10 +22,15 @@ const env = (url: string, outbox: string) => ({
 export function switchableMailer(real: Mailer) {
   const state = { failing: false, attempts: 0 };
   const mailer: Mailer = {
-    async send(mail) {
+    async send(mail, opts) {
       state.attempts++;
       if (state.failing) throw new Error('421 4.3.2 mail service not available, try again later');
-      return real.send(mail);
+      return real.send(mail, opts);
+    },
+    async sendAll(mails, opts) {
+      state.attempts += mails.length;
+      if (state.failing) return mails.map(() => ({ ok: false as const, error: '421 4.3.2 mail service not available, try again later' }));
+      return real.sendAll(mails, opts);
     },
   };
   return Object.assign(state, { mailer });

@@ -1,11 +1,15 @@
 import type { Deps } from '../deps.js';
+import type { OutgoingMail } from '../mail/mailer.js';
 import type { Actor } from '../../shared/abilities.js';
 import { reevaluatePerson } from '../authorisations/issuing.js';
 import * as repo from './reminders.repository.js';
 import * as candidates from './candidates.repository.js';
-import { mailFor } from './context.js';
+import { mailComposer } from './context.js';
 
 const MINUTE = 60_000;
+/** Sends per delivery transaction, and delivery transactions at once in one process. */
+const BATCH = 100;
+const WORKERS = 3;
 /** 1, 2, 4 … minutes between attempts, at most 6 hours: a failing transport is retried until it works. */
 export const backoffMs = (attempts: number) => Math.min(6 * 60 * MINUTE, MINUTE * 2 ** Math.max(0, attempts - 1));
 
@@ -47,35 +51,53 @@ export function makeReminders(deps: Deps) {
     });
   }
 
+  /**
+   * Delivers every due send, a batch per transaction: each batch claims its rows (other workers skip them),
+   * composes from what stands now, and marks a send sent only once the transport has taken its message.
+   */
   async function deliver() {
     const out = { sent: 0, failed: 0, cancelled: 0 };
-    for (let round = 0; round < 1000; round++) {
+    // A few batches at once, as several processes would: SKIP LOCKED keeps them on different sends.
+    await Promise.all(Array.from({ length: WORKERS }, () => deliverBatches(out)));
+    return out;
+  }
+
+  async function deliverBatches(out: { sent: number; failed: number; cancelled: number }) {
+    for (;;) {
       const claimed = await db.transaction(async (tx) => {
         const now = clock.now();
-        const batch = await repo.claimDue(tx, now, 10);
+        const batch = await repo.claimDue(tx, now, BATCH);
+        const people = await repo.recipientsOf(tx, batch.map((s) => s.recipientId));
+        const composer = mailComposer(tx, config, now);
+        await composer.prefetch(batch);
+        const sent: { id: string; mail_id: string }[] = [];
+        const cancelled: string[] = [];
+        const outgoing: { send: (typeof batch)[number]; mail: OutgoingMail }[] = [];
         for (const s of batch) {
-          const to = await repo.recipientOf(tx, s.recipientId);
-          const mail = to?.active ? await mailFor(tx, config, s, to.name, now) : null;
-          if (!to || !mail) {
-            await repo.cancelSend(tx, s.id);
-            out.cancelled++;
-            continue;
-          }
-          try {
-            const sent = await mailer.send({ to: to.email, ...mail });
-            await repo.markSent(tx, s.id, sent.id, clock.now());
-            out.sent++;
-          } catch (err) {
+          const to = people.get(s.recipientId);
+          const mail = to?.active ? await composer.compose(s, to.name) : null;
+          if (to && mail) outgoing.push({ send: s, mail: { to: to.email, ...mail } });
+          else cancelled.push(s.id);
+        }
+        const results = await mailer.sendAll(outgoing.map((o) => o.mail), { log: tx });
+        for (const [i, r] of results.entries()) {
+          const s = outgoing[i].send;
+          if (r.ok) sent.push({ id: s.id, mail_id: r.id });
+          else {
             // Still pending: it is marked sent only after the transport has taken it.
-            await repo.markFailed(tx, s.id, s.attempts + 1, new Date(now.getTime() + backoffMs(s.attempts + 1)), (err as Error).message);
+            await repo.markFailed(tx, s.id, s.attempts + 1, new Date(now.getTime() + backoffMs(s.attempts + 1)), r.error);
             out.failed++;
           }
         }
+        await repo.markSent(tx, sent, clock.now());
+        await repo.cancelSends(tx, cancelled);
+        out.sent += sent.length;
+        out.cancelled += cancelled.length;
         return batch.length;
       });
-      if (!claimed) break;
+      // A short batch means nothing more is due now (failed sends wait for their next attempt).
+      if (claimed < BATCH) break;
     }
-    return out;
   }
 
   async function sweep(): Promise<SweepResult> {

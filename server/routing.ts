@@ -1,6 +1,7 @@
 import type { Request, Response, Router } from 'express';
 import type { ZodType } from 'zod';
 import { z } from 'zod';
+import '../shared/schemas/messages.js';
 import type { Action, Actor, AppAbility, SubjectName } from '../shared/abilities.js';
 import { AppError, forbidden, unauthorized } from './errors.js';
 

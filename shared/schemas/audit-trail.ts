@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { pageQuery } from './common.js';
 import { moment } from './register.js';
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { ROLES, PERSON_TERMS } from '../roles.js';
 
 import { PASSWORD_MIN, PASSWORD_MAX } from '../password-rules.js';

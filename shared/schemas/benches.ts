@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { pageQuery } from './common.js';
 import { activeFilter, calendarDate, equipmentCode, equipmentFlag, notes } from './equipment-common.js';
 import { RCD_TYPES } from '../equipment-terms.js';

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { LIMIT_PRESETS } from '../engine/limits.js';
 import { COMPUTED_QUANTITIES, COMPUTED_QUANTITY_IDS } from '../procedures/quantities.js';
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 
 export const uuidParam = z.object({ id: z.uuid({ message: 'id must be a UUID' }) });
 

@@ -1,6 +1,7 @@
 // Input schemas for the phase-control engine: physical ranges, degrees at the boundary.
 // z.number() in zod 4 refuses NaN and ±Infinity, so every number here is finite.
 import { z } from 'zod';
+import './messages.js';
 
 const volts = z.number().positive().max(1000);
 const ohms = z.number().positive().max(1e7);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { isoDate } from './common.js';
 
 /** A real calendar date (the common isoDate only checks the shape: 2026-02-30 would pass). */

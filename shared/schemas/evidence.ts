@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { pageQuery } from './common.js';
 
 export const EVIDENCE_MEDIA_TYPES = ['image/jpeg', 'image/png', 'application/pdf', 'text/csv'] as const;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { pageQuery } from './common.js';
 import { FINDING_SEVERITIES, FINDING_STATUSES, FINDING_TARGETS } from '../register/kinds.js';
 

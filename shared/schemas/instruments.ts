@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { pageQuery } from './common.js';
 import { activeFilter, calendarDate, equipmentFlag, notes } from './equipment-common.js';
 import { INSTRUMENT_KINDS, MEASUREMENT_CATEGORIES } from '../equipment-terms.js';

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 
 /** A row of the mail log, as the outbox page receives it. */
 export const mailRow = z.object({

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { email, roleSchema } from './auth.js';
 import { isoDate, pageQuery } from './common.js';
 

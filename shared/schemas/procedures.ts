@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { isoDate, pageQuery } from './common.js';
 import { checklistSchema } from './checklists.js';
 

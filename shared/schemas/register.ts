@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { pageQuery } from './common.js';
 import { REGISTER_SORTS, REGISTER_STATES, REGISTER_VIEWS } from '../register/kinds.js';
 

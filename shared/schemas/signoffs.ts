@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { pageQuery } from './common.js';
 import { SIGNOFF_KINDS, SIGNOFF_STATUSES } from '../practicals/terms.js';
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './messages.js';
 import { PERSON_TERMS } from '../roles.js';
 import { isValidTimeZone } from '../time.js';
 

@@ -52,25 +52,30 @@ describe('engine API: resistive load and its inverse', () => {
 });
 
 describe('engine API: refusing bad input, naming the field', () => {
-  const cases: [string, string, unknown, string][] = [
-    ['a voltage given as a string', '/api/engine/resistive', { ...rashid, supply: { voltageRms: '120', frequencyHz: 60 } }, 'supply.voltageRms'],
-    ['a negative resistance', '/api/engine/resistive', { ...rashid, load: { kind: 'resistance', ohms: -10 } }, 'load.ohms'],
-    ['an 80 Hz supply (outside 40–70 Hz)', '/api/engine/resistive', { ...rashid, supply: { voltageRms: 120, frequencyHz: 80 } }, 'supply.frequencyHz'],
-    ['a firing angle of 200°', '/api/engine/resistive', { ...rashid, alphaDeg: 200 }, 'alphaDeg'],
-    ['5000 waveform samples (more than 4000)', '/api/engine/resistive', { ...rashid, waveform: true, samples: 5000 }, 'samples'],
-    ['a missing firing angle', '/api/engine/resistive', { ...rashid, alphaDeg: undefined }, 'alphaDeg'],
-    ['a negative inductance', '/api/engine/inductive', { supply: rashid.supply, resistanceOhms: 20, inductanceH: -0.05, alphaDeg: 90 }, 'inductanceH'],
-    ['a potentiometer setting of 1.5', '/api/engine/trigger', { ...trigger, setting: 1.5 }, 'setting'],
-    ['a breakback above the breakover', '/api/engine/trigger', { ...trigger, diac: { breakoverV: 32, breakbackV: 40 } }, 'diac.breakbackV'],
-    ['a limit reading given as a word other than did-not-trip', '/api/engine/limit-check', { presetId: 'rcd-30ma-1x', measured: 'tripped' }, 'measured'],
-    ['a negative limit reading', '/api/engine/limit-check', { presetId: 'rcd-30ma-1x', measured: -5 }, 'measured'],
+  // The wording is the plain one from shared/schemas/messages.ts; '' where the schema words it itself.
+  const cases: [string, string, unknown, string, string][] = [
+    ['a voltage given as a string', '/api/engine/resistive', { ...rashid, supply: { voltageRms: '120', frequencyHz: 60 } }, 'supply.voltageRms', 'must be a number'],
+    ['a negative resistance', '/api/engine/resistive', { ...rashid, load: { kind: 'resistance', ohms: -10 } }, 'load.ohms', 'must be more than 0'],
+    ['an 80 Hz supply (outside 40–70 Hz)', '/api/engine/resistive', { ...rashid, supply: { voltageRms: 120, frequencyHz: 80 } }, 'supply.frequencyHz', 'must be at most 70'],
+    ['a firing angle of 200°', '/api/engine/resistive', { ...rashid, alphaDeg: 200 }, 'alphaDeg', 'must be at most 180'],
+    ['5000 waveform samples (more than 4000)', '/api/engine/resistive', { ...rashid, waveform: true, samples: 5000 }, 'samples', 'must be at most 4000'],
+    ['a missing firing angle', '/api/engine/resistive', { ...rashid, alphaDeg: undefined }, 'alphaDeg', 'is required'],
+    ['a negative inductance', '/api/engine/inductive', { supply: rashid.supply, resistanceOhms: 20, inductanceH: -0.05, alphaDeg: 90 }, 'inductanceH', 'must be at least 0'],
+    ['a potentiometer setting of 1.5', '/api/engine/trigger', { ...trigger, setting: 1.5 }, 'setting', 'must be at most 1'],
+    ['a breakback above the breakover', '/api/engine/trigger', { ...trigger, diac: { breakoverV: 32, breakbackV: 40 } }, 'diac.breakbackV', ''],
+    ['a limit reading given as a word other than did-not-trip', '/api/engine/limit-check', { presetId: 'rcd-30ma-1x', measured: 'tripped' }, 'measured', ''],
+    ['a negative limit reading', '/api/engine/limit-check', { presetId: 'rcd-30ma-1x', measured: -5 }, 'measured', ''],
   ];
-  for (const [what, url, body, field] of cases) {
+  for (const [what, url, body, field, wording] of cases) {
     it(`when ${what} is sent, then 400 names ${field}`, async () => {
       const res = await tech.post(url).send(body as object);
       expect(res.status).toBe(400);
       expect(res.body.error.code).toBe('invalid_input');
       expect(Object.keys(res.body.error.fields)).toContain(field);
+      if (wording) {
+        expect(res.body.error.fields[field]).toBe(wording);
+        expect(res.body.error.message).toBe(`${field}: ${wording}`);
+      }
     });
   }
 

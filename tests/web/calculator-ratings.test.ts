@@ -26,6 +26,6 @@ describe('the ratings calculator', () => {
     await mountWith(CalculatorRatingsPanel, { user: userWith(['technician']), props: { supply: { voltageRms: 230, frequencyHz: 50 } } });
     expect(rowValue('Suggested fuse rating')).toBe('6.3 A');
     await type(numberBox('Load current (RMS)'), '-2');
-    expect(numberBox('Load current (RMS)').closest('.v-input')?.querySelector('.v-messages')?.textContent).toMatch(/expected number to be >0/);
+    expect(numberBox('Load current (RMS)').closest('.v-input')?.querySelector('.v-messages')?.textContent).toMatch(/must be more than 0/);
   });
 });

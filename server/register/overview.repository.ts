@@ -17,7 +17,7 @@ export async function stateCounts(db: Executor, f: RegisterWhere) {
 }
 
 /**
- * Running authorisations that end within `days` of the moment, by whole days to go and by week to go, in
+ * Running authorisations that end within `days` of the moment (running then, so ending after it), by whole days to go and by week to go, in
  * one pass: the windows are sums of the days, the chart is the weeks.
  */
 export async function expiries(db: Executor, f: RegisterWhere, windowsDays: readonly number[], weeks: number) {
@@ -25,7 +25,7 @@ export async function expiries(db: Executor, f: RegisterWhere, windowsDays: read
   const left = sql`extract(epoch from (pe.ends_at - ${t}))`;
   const rows = await rowsOf<{ day: number | null; week: number | null; n: number }>(db, sql`
     select ceil(${left} / 86400)::int as day, floor(${left} / 604800)::int as week, count(*)::int as n
-    from (${spanSelect(f, sql`pe.ends_at`, ['pe'])} and ${RUNNING} and pe.ends_at <= ${t} + ${`${Math.max(weeks * 7, ...windowsDays)} days`}::interval) pe
+    from (${spanSelect(f, sql`pe.ends_at`, ['pe'])} and ${RUNNING} and pe.ends_at > ${t} and pe.ends_at <= ${t} + ${`${Math.max(weeks * 7, ...windowsDays)} days`}::interval) pe
     group by grouping sets ((1), (2))`);
   const days = rows.filter((r) => r.day !== null);
   return {

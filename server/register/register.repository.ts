@@ -82,8 +82,18 @@ export function registerSelect(f: RegisterWhere, sort: RegisterSort = 'person', 
     join sites si on si.id = users.site_id
     join scopes s on s.id = a.scope_id
     ${stateSource(f.moment)}
-    where ${conditions(f, FROM_AUTH)}
+    where ${conditions(f, FROM_AUTH)}${runningEnd(f)}
     order by ${sql.raw(ORDER[sort].replace('%d', dir))}`;
+}
+
+const RUNNING_STATES = new Set(['active', 'suspended', 'renewal_submitted']);
+
+/**
+ * A state that is running at the moment belongs to a period that ends after it. Saying so lets the
+ * planner walk the periods by end from the moment on, rather than from the oldest, when sorting by expiry.
+ */
+function runningEnd(f: RegisterWhere): SQL {
+  return f.state && RUNNING_STATES.has(f.state) && !f.moment.known ? sql` and pe.ends_at > ${f.moment.at.toISOString()}::timestamptz` : sql``;
 }
 
 /**

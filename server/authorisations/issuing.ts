@@ -2,7 +2,7 @@ import type { Executor } from '../db/client.js';
 import { notFound } from '../errors.js';
 import { lockPerson, type PersonRow } from './facts.repository.js';
 import { scopesWithRequirements, type ScopeWithRequirements } from './scopes.repository.js';
-import { ensureAuthorisation, insertPeriod } from './periods.repository.js';
+import { ensureAuthorisation, insertPeriod, scopesWithLaterPeriods } from './periods.repository.js';
 import { loadFacts, prerequisiteOrder, type Standing } from './eligibility.js';
 import { evaluateScope, type EvaluationFacts, type RequirementResult } from './requirements.js';
 import { allMet, capsFor, freshSince, isFresh, plannedEnd, whatSetsTheEnd, windowStart } from './caps.js';
@@ -28,7 +28,11 @@ export async function reevaluatePerson(tx: Executor, personId: string, ctx: Eval
   const scopes = await scopesWithRequirements(tx);
   const { facts, standings } = await loadFacts(tx, person, scopes, now);
   const w = new Writer(tx, ctx, now);
+  // A period recorded to start later than now (a clock set back) is left as it is: nothing is decided
+  // for that scope before then, so no period can be opened that would run into it.
+  const ahead = await scopesWithLaterPeriods(tx, person.id, now);
   for (const scope of prerequisiteOrder(scopes)) {
+    if (ahead.has(scope.id)) continue;
     const st = standings.get(scope.id);
     const issued = await decide(w, person, scope, st, facts);
     const current = issued ?? st;

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, getTableColumns, inArray, lte, sql, type SQL } from 'drizzle-orm';
+import { type SQL, and, asc, desc, eq, getTableColumns, gt, inArray, lte, sql } from 'drizzle-orm';
 import type { Executor } from '../db/client.js';
 import { authorisationEvents, authorisationPeriods, authorisations } from '../db/schema/index.js';
 
@@ -46,6 +46,13 @@ export async function findPeriod(db: Executor, id: string): Promise<PeriodRow | 
 
 export async function findPeriods(db: Executor, ids: string[]): Promise<PeriodRow[]> {
   return ids.length ? db.select(periodColumns).from(authorisationPeriods).where(inArray(authorisationPeriods.id, ids)) : [];
+}
+
+/** Scopes in which the person has a period that starts after `at` (recorded ahead of the clock). */
+export async function scopesWithLaterPeriods(db: Executor, holderId: string, at: Date): Promise<Set<string>> {
+  const rows = await db.selectDistinct({ scopeId: authorisationPeriods.scopeId }).from(authorisationPeriods)
+    .where(and(eq(authorisationPeriods.holderId, holderId), gt(authorisationPeriods.startsAt, at)));
+  return new Set(rows.map((r) => r.scopeId));
 }
 
 export async function findPeriodByCode(db: Executor, code: string): Promise<PeriodRow | undefined> {

@@ -64,7 +64,10 @@ export function buildRouteTable(deps: Deps, s: Services): RouteDef[] {
     ...procedureRoutes(s.procedures),
     ...signoffRoutes(s.signoffs),
     ...practicalRoutes(s.practicals),
-    ...authorisationRoutes(s.authorisations),
+    // Best effort, where sweeps run on their schedule: elsewhere the scheduled sweep does it within ten minutes.
+    ...authorisationRoutes(s.authorisations, async () => {
+      if (s.jobs.scheduled) await s.jobs.requestSweep(null).catch(() => undefined);
+    }),
     ...reminderRoutes(s.reminders, s.jobs),
     ...registerFeatureRoutes(s.register),
   ];

@@ -13,8 +13,8 @@ const q = (db: Database, s: ReturnType<typeof sql>) => db.execute(s);
 export async function seedRegisterHistory(db: Database, now: Date, scopes: number) {
   const t = sql`${now.toISOString()}::timestamptz`;
   const [admin] = (await db.execute(sql`select id, name from users where email = 'person1@bench.invalid'`)).rows as { id: string; name: string }[];
-  await q(db, sql`insert into scopes (code, title, description, max_voltage_v, max_current_a, allows_live_work, validity_months, reminder_offsets_days, certificate_grace_days, active, created_at, updated_at)
-    select 'B-' || lpad(g::text, 2, '0'), 'Bench scope ' || g, '', 250, 10, g % 2 = 0, 12, '{30,7}', 0, true, ${t}, ${t} from generate_series(1, ${scopes}) g`);
+  await q(db, sql`insert into scopes (code, title, description, max_voltage_v, max_current_a, allows_live_work, validity_months, reminder_offsets_days, certificate_grace_days, active, created_at, updated_at, redecided_at)
+    select 'B-' || lpad(g::text, 2, '0'), 'Bench scope ' || g, '', 250, 10, g % 2 = 0, 12, '{30,7}', 0, true, ${t}, ${t}, ${t} from generate_series(1, ${scopes}) g`);
   await q(db, sql`update users set created_at = ${t} - interval '3 years'`);
   // The people suite made one person in ten a manager (twenty per site, and every reminder goes to each of them);
   // a workshop has two or so: the rest become technicians, so the sweep mails as many people as it would for real.

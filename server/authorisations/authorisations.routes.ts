@@ -7,7 +7,12 @@ import {
 import type { AuthorisationsFeature } from './index.js';
 import type { ManagerAction } from './actions.service.js';
 
-export function authorisationRoutes(f: AuthorisationsFeature): RouteDef[] {
+/** `scopeSaved` runs after a scope was created or edited (the app asks the queue for a sweep, which re-decides everyone it concerns). */
+export function authorisationRoutes(f: AuthorisationsFeature, scopeSaved: () => Promise<void> = async () => undefined): RouteDef[] {
+  const saved = async <T>(result: T) => {
+    await scopeSaved();
+    return result;
+  };
   const action = (name: ManagerAction) => route({
     method: 'post', path: `/authorisations/:id/${name}`, access: ['update', 'Authorisation'], params: uuidParam, body: actionBody,
     handler: async ({ actor, ability, params, body }) => f.actions.act(actor!, ability, params.id, name, body),
@@ -15,8 +20,8 @@ export function authorisationRoutes(f: AuthorisationsFeature): RouteDef[] {
   return [
     route({ method: 'get', path: '/scopes', access: ['read', 'Scope'], handler: async () => f.scopes.list() }),
     route({ method: 'get', path: '/scopes/:id', access: ['read', 'Scope'], params: uuidParam, handler: async ({ params }) => f.scopes.get(params.id) }),
-    route({ method: 'post', path: '/scopes', access: ['create', 'Scope'], body: scopeBody, status: 201, handler: async ({ actor, body }) => f.scopes.create(actor!, body) }),
-    route({ method: 'put', path: '/scopes/:id', access: ['update', 'Scope'], params: uuidParam, body: scopeBody, handler: async ({ actor, params, body }) => f.scopes.update(actor!, params.id, body) }),
+    route({ method: 'post', path: '/scopes', access: ['create', 'Scope'], body: scopeBody, status: 201, handler: async ({ actor, body }) => saved(await f.scopes.create(actor!, body)) }),
+    route({ method: 'put', path: '/scopes/:id', access: ['update', 'Scope'], params: uuidParam, body: scopeBody, handler: async ({ actor, params, body }) => saved(await f.scopes.update(actor!, params.id, body)) }),
 
     route({ method: 'get', path: '/authorisations/mine', access: ['read', 'Authorisation'], handler: async ({ actor }) => f.authorisations.mine(actor!) }),
     route({ method: 'get', path: '/authorisations/due', access: ['read', 'Authorisation'], query: dueQuery, handler: async ({ ability, query }) => f.authorisations.due(ability, query) }),

@@ -19,6 +19,7 @@ export interface JobsOptions {
 export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Promise<unknown>)[] = []) {
   let boss: PgBoss | null = null;
   let starting: Promise<void> | null = null;
+  let scheduled = false;
 
   async function afterSweep(result: SweepResult) {
     if (!boss || !result.nextAttemptAt) return;
@@ -52,6 +53,7 @@ export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Pro
       return out[0];
     });
     boss = b;
+    scheduled = opts.schedule !== false;
   }
 
   return {
@@ -68,6 +70,10 @@ export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Pro
     },
     get running() {
       return boss !== null;
+    },
+    /** Whether this process runs the sweep on its schedule (callers that drive sweeps themselves turn it off). */
+    get scheduled() {
+      return boss !== null && scheduled;
     },
     /** Asks for a sweep now; any process's worker may take it. */
     async requestSweep(requestedBy: string | null): Promise<string> {

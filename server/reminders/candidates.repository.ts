@@ -68,3 +68,35 @@ export function acknowledgementCandidates(db: Executor, now: Date, limit: number
         and p.during @> ${t}::timestamptz and p.ends_at = p.validity_ends_at)
     limit ${limit}`);
 }
+
+/** Scopes created or edited since everyone they concern was last re-decided for them. */
+export async function changedScopes(db: Executor) {
+  // The moment as text keeps its microseconds, so marking it done matches exactly what was read.
+  const r = (await db.execute(sql`select id, updated_at::text as seen from scopes where redecided_at is distinct from updated_at order by updated_at`)) as unknown as Rows<{ id: string; seen: string }>;
+  return r.rows.map((x) => ({ id: x.id, seen: x.seen }));
+}
+
+/**
+ * Everyone a scope's change concerns: active people with some evidence for every one of its requirements
+ * (a superset of who meets them now; the decision itself is exact), and whoever holds a running period of it.
+ */
+export function scopeCandidates(db: Executor, scopeId: string, now: Date) {
+  const t = now.toISOString();
+  return ids(db, sql`
+    select u.id as holder_id from users u
+    where u.active and exists (select 1 from scope_requirements q0 where q0.scope_id = ${scopeId})
+      and not exists (select 1 from scope_requirements q where q.scope_id = ${scopeId} and not case q.kind
+        when 'procedure_ack' then exists (select 1 from procedure_acknowledgements a where a.user_id = u.id and a.procedure_id = q.procedure_id)
+        when 'checklist_signoff' then exists (select 1 from signoffs g where g.person_id = u.id and g.procedure_id = q.procedure_id and g.status = 'countersigned')
+        when 'practicals' then exists (select 1 from practicals p where p.technician_id = u.id and p.procedure_id = q.procedure_id and p.outcome = 'competent')
+        when 'prerequisite' then exists (select 1 from authorisations x where x.holder_id = u.id and x.scope_id = q.prerequisite_scope_id)
+        when 'certificate' then exists (select 1 from external_certificates c where c.holder_id = u.id and c.kind = q.certificate_kind and c.status = 'verified')
+        else true end)
+    union
+    select p.holder_id from authorisation_periods p where p.scope_id = ${scopeId} and p.ends_at > ${t}::timestamptz and p.starts_at <= ${t}::timestamptz`);
+}
+
+/** Records that a scope, as it stood when `seen`, has been re-decided for everyone (unless edited again since). */
+export async function markScopeRedecided(db: Executor, scopeId: string, seen: string) {
+  await db.execute(sql`update scopes set redecided_at = updated_at where id = ${scopeId} and updated_at = ${seen}::timestamptz`);
+}

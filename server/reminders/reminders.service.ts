@@ -38,8 +38,44 @@ export function makeReminders(deps: Deps) {
       ...(await candidates.rereadCandidates(db, now, 2000)),
       ...(await candidates.acknowledgementCandidates(db, now, 2000)),
     ]);
-    for (const id of people) await db.transaction((tx) => reevaluatePerson(tx, id, { ...deps, actorId: null }));
-    return people.size;
+    let n = 0;
+    for (const id of people) if (await redecide(id)) n++;
+    return n + (await redecideChangedScopes(people));
+  }
+
+  /**
+   * Re-decides one person in a transaction of their own. One person whose decision fails (say, their
+   * record breaks a rule) is logged and left for the next sweep; everyone else is still decided.
+   */
+  async function redecide(personId: string): Promise<boolean> {
+    try {
+      await db.transaction((tx) => reevaluatePerson(tx, personId, { ...deps, actorId: null }));
+      return true;
+    } catch (err) {
+      const e = err as Error & { cause?: Error };
+      console.error(`[sweep] could not re-decide person ${personId}: ${(e.cause ?? e).message.split('\n')[0]}`);
+      return false;
+    }
+  }
+
+  /**
+   * A new or edited scope is decided for everyone it concerns: those who already meet it are issued it,
+   * and what rests on it follows the change. `done` are people already re-decided in this sweep.
+   */
+  async function redecideChangedScopes(done: Set<string>): Promise<number> {
+    let n = 0;
+    for (const scope of await candidates.changedScopes(db)) {
+      let failed = false;
+      for (const id of await candidates.scopeCandidates(db, scope.id, clock.now())) {
+        if (done.has(id)) continue;
+        if (await redecide(id)) n++;
+        else failed = true;
+        done.add(id);
+      }
+      // With a failure the scope stays marked as changed, so the next sweep tries again.
+      if (!failed) await candidates.markScopeRedecided(db, scope.id, scope.seen);
+    }
+    return n;
   }
 
   async function plan(): Promise<number> {

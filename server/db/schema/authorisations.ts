@@ -29,6 +29,8 @@ export const scopes = pgTable('scopes', {
   createdBy: uuid('created_by').references(() => users.id),
   createdAt: ts('created_at').notNull(),
   updatedAt: ts('updated_at').notNull(),
+  /** The updated_at the sweep last re-decided everyone it concerns for (null: not yet). */
+  redecidedAt: ts('redecided_at'),
 }, (t) => [
   uniqueIndex('scopes_code_uq').on(t.code),
   check('scopes_code_ck', sql`${t.code} ~ '^[A-Z0-9][A-Z0-9-]{1,23}$'`),

@@ -64,7 +64,11 @@ export function computeExpectations(circuit: Circuit, supply: Supply): Expectati
     'load-rms-current': figures.loadCurrentRmsA,
     'load-power': figures.outputPowerW,
   };
-  return { ...base, load: loadView, firing, quantities, thermal: thermalOf(circuit, figures.triac), notes };
+  const thermal = thermalOf(circuit, figures.triac);
+  // What a contact thermometer reads on the device tab and on the heatsink, when a heatsink value was given.
+  if (thermal?.caseC != null) quantities['case-temperature'] = thermal.caseC;
+  if (thermal?.sinkC != null) quantities['heatsink-temperature'] = thermal.sinkC;
+  return { ...base, load: loadView, firing, quantities, thermal, notes };
 }
 
 function thermalOf(circuit: Circuit, triac: { rmsA: number; meanAbsA: number }): Expectations['thermal'] {

@@ -3,6 +3,7 @@
 
 export const COMPUTED_QUANTITY_IDS = [
   'firing-angle', 'conduction-angle', 'delay-time', 'output-rms-voltage', 'load-rms-current', 'load-power',
+  'case-temperature', 'heatsink-temperature',
 ] as const;
 export type ComputedQuantity = (typeof COMPUTED_QUANTITY_IDS)[number];
 
@@ -13,4 +14,12 @@ export const COMPUTED_QUANTITIES: Record<ComputedQuantity, { label: string; unit
   'output-rms-voltage': { label: 'Output RMS voltage', unit: 'V', note: 'V·√(1 − α/π + sin 2α / 2π), resistive load.' },
   'load-rms-current': { label: 'RMS load current', unit: 'A', note: 'Output RMS voltage over the load resistance.' },
   'load-power': { label: 'Load power', unit: 'W', note: 'Output RMS voltage squared over the load resistance.' },
+  'case-temperature': {
+    label: 'Device case temperature', unit: '°C',
+    note: 'Steady state, once the heatsink has settled: ambient plus the conduction loss times the case-to-sink and sink-to-ambient resistances. Needs the device thermal figures with a heatsink value.',
+  },
+  'heatsink-temperature': {
+    label: 'Heatsink temperature', unit: '°C',
+    note: 'Steady state, once the heatsink has settled: ambient plus the conduction loss times the sink-to-ambient resistance. Needs the device thermal figures with a heatsink value.',
+  },
 };

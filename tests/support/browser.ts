@@ -45,7 +45,14 @@ export async function startBrowserApp(opts: TestAppOptions = {}) {
     await page.getByLabel('E-mail').fill(email);
     await page.getByLabel('Password', { exact: true }).fill(password);
     await page.getByRole('button', { name: /sign in/i }).click();
-    await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+    try {
+      // Generous: on a loaded two-core machine the password hash and the first route's chunk take a while.
+      await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 60_000 });
+    } catch (err) {
+      // Say what the page showed, so a failure here can be told from a slow machine.
+      const alerts = await page.getByRole('alert').allTextContents().catch(() => []);
+      throw new Error(`sign-in as ${email} did not leave ${page.url()} (alerts: ${JSON.stringify(alerts)}): ${(err as Error).message.split('\n')[0]}`);
+    }
     return page;
   }
 

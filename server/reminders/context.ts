@@ -3,7 +3,7 @@ import type { Config } from '../config.js';
 import { STATE_LABELS, type CertificateKind } from '../../shared/authorisations/kinds.js';
 import { summaryOf, summariesOf } from '../authorisations/authorisations.repository.js';
 import { findCertificate } from '../authorisations/certificates.repository.js';
-import { findPeople, findPerson, type PersonRow } from '../authorisations/facts.repository.js';
+import { findPeople, findPerson } from '../authorisations/facts.repository.js';
 import { findPeriod, findPeriods, eventsOf } from '../authorisations/periods.repository.js';
 import { scopesWithRequirements, type ScopeWithRequirements } from '../authorisations/scopes.repository.js';
 import { eligibilityOf, eligibilityOfMany, type ScopeEligibility } from '../authorisations/eligibility.js';
@@ -33,11 +33,12 @@ function memo<K, V>(load: (key: K) => Promise<V>) {
  * batch runs on one transaction's connection); what several sends share is read once.
  */
 export function mailComposer(db: Executor, config: Config, now: Date) {
-  const scopes = memo(() => scopesWithRequirements(db));
+  let allScopes: Promise<ScopeWithRequirements[]> | undefined;
+  const scopes = () => (allScopes ??= scopesWithRequirements(db));
   const person = memo((id: string) => findPerson(db, id));
   const eligibility = memo(async (id: string): Promise<ScopeEligibility[]> => {
     const holder = await person(id);
-    return holder ? eligibilityOf(db, holder, await scopes(undefined), now) : [];
+    return holder ? eligibilityOf(db, holder, await scopes(), now) : [];
   });
   const periodFacts = memo(async (id: string) => {
     const period = await findPeriod(db, id);
@@ -50,7 +51,7 @@ export function mailComposer(db: Executor, config: Config, now: Date) {
     const cert = await findCertificate(db, id);
     const holder = cert && (await person(cert.holderId));
     if (!cert || !holder) return null;
-    const resting = (await scopes(undefined)).filter((s) => s.requirements.some((r) => r.kind === 'certificate' && r.certificateKind === cert.kind));
+    const resting = (await scopes()).filter((s) => s.requirements.some((r) => r.kind === 'certificate' && r.certificateKind === cert.kind));
     const states = await statesAt(db, { holderIds: [holder.id], scopeIds: resting.map((s) => s.id) }, now);
     const held = resting.filter((s) => [...states.values()].some((st) => st.period?.scopeId === s.id && st.period.endsAt > now));
     return { cert, holder, held };
@@ -63,7 +64,7 @@ export function mailComposer(db: Executor, config: Config, now: Date) {
     const events = await eventsOf(db, periods.map((p) => p.id));
     const people = new Map((await findPeople(db, [...new Set([...rows.values()].map((r) => r.holderId))])).map((p) => [p.id, p]));
     for (const p of people.values()) person.prime(p.id, p);
-    const judged = await eligibilityOfMany(db, [...people.values()], await scopes(undefined), now);
+    const judged = await eligibilityOfMany(db, [...people.values()], await scopes(), now);
     for (const [id, e] of judged) eligibility.prime(id, e);
     for (const period of periods) {
       const row = rows.get(period.authorisationId);
@@ -125,4 +126,3 @@ function sameEnd(send: SendRow, endsAt: Date): boolean {
   return send.dueAt.getTime() + send.offsetDays * DAY_MS === endsAt.getTime();
 }
 
-export type { PersonRow };

@@ -4,8 +4,6 @@ import { reminderSends, users } from '../db/schema/index.js';
 
 export type SendRow = typeof reminderSends.$inferSelect;
 
-export { planSends } from './planning.repository.js';
-
 /**
  * Pending reminders about an end that has moved since they were planned (the due moment no longer
  * matches the period's end less the offset) are cancelled; planning records the new end's own.

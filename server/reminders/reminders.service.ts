@@ -4,6 +4,7 @@ import type { Actor } from '../../shared/abilities.js';
 import { reevaluatePerson } from '../authorisations/issuing.js';
 import * as repo from './reminders.repository.js';
 import * as candidates from './candidates.repository.js';
+import * as planning from './planning.repository.js';
 import { mailComposer } from './context.js';
 
 const MINUTE = 60_000;
@@ -81,7 +82,7 @@ export function makeReminders(deps: Deps) {
   async function plan(): Promise<number> {
     return db.transaction(async (tx) => {
       await repo.cancelMoved(tx);
-      const n = await repo.planSends(tx, clock.now());
+      const n = await planning.planSends(tx, clock.now());
       if (n) await audit(tx, { actorId: null, action: 'reminders.planned', entity: 'reminder_sends', entityId: clock.now().toISOString(), newValues: { count: n } });
       return n;
     });

@@ -21,4 +21,5 @@ export interface ApiErrorBody {
   error: { code: string; message: string; fields?: Record<string, string> };
 }
 
-export const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'use the form YYYY-MM-DD');
+// An empty field says so rather than asking for a format (the first message per field is the one shown).
+export const isoDate = z.string().min(1, 'enter a date').regex(/^\d{4}-\d{2}-\d{2}$/, 'use the form YYYY-MM-DD');

@@ -1,0 +1,2 @@
+-- (filled in by the change that makes the application log in as breakover_app)
+SELECT 1;

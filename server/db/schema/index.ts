@@ -8,3 +8,4 @@ export * from './authorisations.js';
 export * from './practicals.js';
 export * from './findings.js';
 export * from './register.js';
+export * from './rate-limit.js';

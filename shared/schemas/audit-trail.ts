@@ -1,12 +1,12 @@
 import { z } from 'zod';
 import './messages.js';
-import { pageQuery } from './common.js';
+import { pageQuery, recordId, uuid } from './common.js';
 import { moment } from './register.js';
 
 export const auditTrailQuery = pageQuery.omit({ q: true }).extend({
-  actorId: z.uuid({ message: 'actorId must be a person id' }).optional(),
+  actorId: uuid('actorId must be a person id').optional(),
   entity: z.string().trim().regex(/^[a-z_]{2,40}$/, 'use a record kind such as authorisation_period').optional(),
-  entityId: z.string().trim().min(1).max(100).optional(),
+  entityId: recordId().optional(),
   // Exact ("authorisation.revoked") or every action of a kind ("authorisation.").
   action: z.string().trim().regex(/^[a-z_]+(\.[a-z_]*)?$/, 'use an action such as authorisation.revoked, or authorisation. for all of them').optional(),
   from: moment.optional(),

@@ -1,18 +1,18 @@
 import { z } from 'zod';
 import './messages.js';
-import { isoDate, pageQuery } from './common.js';
+import { isoDate, pageQuery, uuid } from './common.js';
 import { CERTIFICATE_KINDS } from '../authorisations/kinds.js';
 
 const password = z.string().min(1, 're-enter your password to sign').max(1024, 'password is too long');
 const reason = z.string().trim().min(3, 'give a reason').max(500, 'use at most 500 characters');
 
 export const requirementBody = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('procedure_ack'), procedureId: z.uuid({ message: 'choose a procedure' }) }).strict(),
-  z.object({ kind: z.literal('prerequisite'), scopeId: z.uuid({ message: 'choose the scope it rests on' }) }).strict(),
+  z.object({ kind: z.literal('procedure_ack'), procedureId: uuid('choose a procedure') }).strict(),
+  z.object({ kind: z.literal('prerequisite'), scopeId: uuid('choose the scope it rests on') }).strict(),
   z.object({ kind: z.literal('certificate'), certificateKind: z.enum(CERTIFICATE_KINDS, { message: 'choose a kind of certificate' }) }).strict(),
-  z.object({ kind: z.literal('checklist_signoff'), procedureId: z.uuid({ message: 'choose a procedure' }) }).strict(),
+  z.object({ kind: z.literal('checklist_signoff'), procedureId: uuid('choose a procedure') }).strict(),
   z.object({
-    kind: z.literal('practicals'), procedureId: z.uuid({ message: 'choose a procedure' }),
+    kind: z.literal('practicals'), procedureId: uuid('choose a procedure'),
     count: z.number().int('a whole number').min(1, 'at least 1').max(10, 'at most 10'),
     windowMonths: z.number().int('whole months').min(1, 'at least 1 month').max(60, 'at most 60 months'),
   }).strict(),
@@ -34,13 +34,13 @@ export const scopeBody = z.object({
 }).strict();
 
 export const certificateBody = z.object({
-  holderId: z.uuid({ message: 'choose the person' }).optional(),
+  holderId: uuid('choose the person').optional(),
   kind: z.enum(CERTIFICATE_KINDS, { message: 'choose a kind of certificate' }),
   issuer: z.string().trim().min(2, 'name who issued it').max(160),
   reference: z.string().trim().max(80).default(''),
   issuedOn: isoDate,
   expiresOn: isoDate,
-  evidenceId: z.uuid({ message: 'evidenceId must be an uploaded file id' }).optional(),
+  evidenceId: uuid('evidenceId must be an uploaded file id').optional(),
 }).strict();
 
 export const signBody = z.object({ password }).strict();
@@ -48,12 +48,12 @@ export const rejectBody = z.object({ reason }).strict();
 export const actionBody = z.object({ reason, password }).strict();
 
 export const priorBody = z.object({
-  holderId: z.uuid({ message: 'choose the person' }),
-  scopeId: z.uuid({ message: 'choose the scope' }),
+  holderId: uuid('choose the person'),
+  scopeId: uuid('choose the scope'),
   issuedOn: isoDate,
   expiresOn: isoDate,
   attestedBy: z.string().trim().min(3, 'name who attested the paper record').max(200),
-  evidenceId: z.uuid({ message: 'evidenceId must be an uploaded file id' }).optional(),
+  evidenceId: uuid('evidenceId must be an uploaded file id').optional(),
   note: z.string().trim().max(1000).default(''),
   password,
 }).strict();
@@ -65,25 +65,25 @@ export const importBody = z.object({
 }).strict();
 
 export const authorisationsQuery = pageQuery.extend({
-  holderId: z.uuid().optional(),
-  siteId: z.uuid().optional(),
-  scopeId: z.uuid().optional(),
+  holderId: uuid().optional(),
+  siteId: uuid().optional(),
+  scopeId: uuid().optional(),
 });
 
 export const dueQuery = pageQuery.omit({ q: true }).extend({
-  siteId: z.uuid({ message: 'choose a site' }).optional(),
+  siteId: uuid('choose a site').optional(),
   withinDays: z.coerce.number().int().min(1).max(365).default(60),
 });
 
 export const certificatesQuery = pageQuery.omit({ q: true }).extend({
-  holderId: z.uuid().optional(),
-  siteId: z.uuid().optional(),
+  holderId: uuid().optional(),
+  siteId: uuid().optional(),
   status: z.enum(['submitted', 'verified', 'rejected']).optional(),
 });
 
-export const periodQuery = z.object({ periodId: z.uuid({ message: 'periodId must be a UUID' }).optional() });
-export const personScopeParams = z.object({ personId: z.uuid({ message: 'personId must be a UUID' }), scopeId: z.uuid({ message: 'scopeId must be a UUID' }) });
-export const personParam = z.object({ personId: z.uuid({ message: 'personId must be a UUID' }) });
+export const periodQuery = z.object({ periodId: uuid('periodId must be a UUID').optional() });
+export const personScopeParams = z.object({ personId: uuid('personId must be a UUID'), scopeId: uuid('scopeId must be a UUID') });
+export const personParam = z.object({ personId: uuid('personId must be a UUID') });
 export const codeParam = z.object({ code: z.string().max(100) });
 
 export type RequirementBody = z.infer<typeof requirementBody>;

@@ -1,13 +1,13 @@
 import { z } from 'zod';
 import './messages.js';
-import { pageQuery } from './common.js';
+import { pageQuery, uuid } from './common.js';
 import { activeFilter, calendarDate, equipmentCode, equipmentFlag, notes } from './equipment-common.js';
 import { RCD_TYPES } from '../equipment-terms.js';
 
 export { RCD_TYPES, type RcdType } from '../equipment-terms.js';
 
 export const benchFields = z.object({
-  siteId: z.uuid({ message: 'choose a site' }),
+  siteId: uuid('choose a site'),
   code: equipmentCode,
   name: z.string().trim().min(2, 'enter a name').max(120, 'use at most 120 characters'),
   supplyVoltage: z.number().int('whole volts').min(1, 'between 1 and 1000 V').max(1000, 'between 1 and 1000 V'),
@@ -43,7 +43,7 @@ export const benchBody = benchFields.extend({ notes: notes.nullable().default(nu
 export const benchUpdateBody = benchFields.omit({ siteId: true }).partial().strict();
 
 export const benchesQuery = pageQuery.extend({
-  siteId: z.uuid().optional(),
+  siteId: uuid().optional(),
   active: activeFilter,
   inspection: z.enum(['overdue', 'due']).optional(),
   rcdType: z.enum(RCD_TYPES).optional(),

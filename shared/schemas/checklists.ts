@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
+import { uuid } from './common.js';
 import { LIMIT_PRESETS } from '../engine/limits.js';
 import { COMPUTED_QUANTITIES, COMPUTED_QUANTITY_IDS } from '../procedures/quantities.js';
 
@@ -48,7 +49,7 @@ export const acceptanceRuleSchema = z.discriminatedUnion('type', [
 ]);
 export type AcceptanceRule = z.infer<typeof acceptanceRuleSchema>;
 
-const key = z.uuid({ message: 'key must be a UUID' }).optional();
+const key = uuid('key must be a UUID').optional();
 const prompt = z.string().trim().min(3, 'write the item (at least 3 characters)').max(500, 'use at most 500 characters');
 const guidance = z.string().trim().max(1000, 'use at most 1000 characters').nullish().transform((v) => v || null);
 

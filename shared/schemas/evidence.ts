@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
-import { pageQuery } from './common.js';
+import { pageQuery, recordId, uuid } from './common.js';
 
 export const EVIDENCE_MEDIA_TYPES = ['image/jpeg', 'image/png', 'application/pdf', 'text/csv'] as const;
 export type EvidenceMediaType = (typeof EVIDENCE_MEDIA_TYPES)[number];
@@ -20,17 +20,17 @@ export const EVIDENCE_EXTENSIONS: Record<EvidenceMediaType, readonly string[]> =
 /** The text fields sent with the file in the multipart form. */
 export const evidenceUploadFields = z
   .object({
-    ownerId: z.uuid({ message: 'ownerId must be a person id' }).optional(),
+    ownerId: uuid('ownerId must be a person id').optional(),
     entity: z.enum(EVIDENCE_ENTITIES, { message: `use one of: ${EVIDENCE_ENTITIES.join(', ')}` }).default('person'),
-    entityId: z.string().trim().min(1, 'give the record id').max(100).optional(),
+    entityId: recordId('give the record id').optional(),
     caption: z.string().trim().max(500, 'use at most 500 characters').optional(),
   })
   .strict();
 
 export const evidenceQuery = pageQuery.omit({ q: true }).extend({
-  ownerId: z.uuid({ message: 'ownerId must be a person id' }).optional(),
+  ownerId: uuid('ownerId must be a person id').optional(),
   entity: z.enum(EVIDENCE_ENTITIES).optional(),
-  entityId: z.string().trim().min(1).max(100).optional(),
+  entityId: recordId().optional(),
 });
 
 export const evidenceRow = z.object({

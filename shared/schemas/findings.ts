@@ -1,13 +1,13 @@
 import { z } from 'zod';
 import './messages.js';
-import { pageQuery } from './common.js';
+import { pageQuery, recordId, uuid } from './common.js';
 import { FINDING_SEVERITIES, FINDING_STATUSES, FINDING_TARGETS } from '../register/kinds.js';
 
 const text = (what: string, max: number) => z.string().trim().min(3, `write the ${what}`).max(max, `use at most ${max} characters`);
 
 export const findingBody = z.object({
   entity: z.enum(FINDING_TARGETS, { message: `use one of: ${FINDING_TARGETS.join(', ')}` }),
-  entityId: z.string().trim().min(1, 'give the record id').max(100),
+  entityId: recordId('give the record id'),
   severity: z.enum(FINDING_SEVERITIES, { message: `use one of: ${FINDING_SEVERITIES.join(', ')}` }),
   text: text('finding', 4000),
 }).strict();
@@ -19,8 +19,8 @@ export const closeBody = z.object({ note: text('closing note', 2000) }).strict()
 export const findingsQuery = pageQuery.extend({
   status: z.enum(FINDING_STATUSES).optional(),
   severity: z.enum(FINDING_SEVERITIES).optional(),
-  siteId: z.uuid({ message: 'siteId must be a site id' }).optional(),
+  siteId: uuid('siteId must be a site id').optional(),
   entity: z.enum(FINDING_TARGETS).optional(),
-  entityId: z.string().trim().min(1).max(100).optional(),
+  entityId: recordId().optional(),
 });
 export type FindingsQuery = z.infer<typeof findingsQuery>;

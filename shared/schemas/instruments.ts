@@ -1,13 +1,13 @@
 import { z } from 'zod';
 import './messages.js';
-import { pageQuery } from './common.js';
+import { pageQuery, uuid } from './common.js';
 import { activeFilter, calendarDate, equipmentFlag, notes } from './equipment-common.js';
 import { INSTRUMENT_KINDS, MEASUREMENT_CATEGORIES } from '../equipment-terms.js';
 
 export { INSTRUMENT_KINDS, INSTRUMENT_KIND_LABELS, MEASUREMENT_CATEGORIES, RMS_READING_KINDS, type InstrumentKind } from '../equipment-terms.js';
 
 export const instrumentFields = z.object({
-  siteId: z.uuid({ message: 'choose a site' }),
+  siteId: uuid('choose a site'),
   kind: z.enum(INSTRUMENT_KINDS, { message: 'choose a kind' }),
   make: z.string().trim().min(1, 'enter the make').max(80, 'use at most 80 characters'),
   model: z.string().trim().min(1, 'enter the model').max(80, 'use at most 80 characters'),
@@ -37,7 +37,7 @@ export const instrumentBody = instrumentFields
 export const instrumentUpdateBody = instrumentFields.partial().strict();
 
 export const instrumentsQuery = pageQuery.extend({
-  siteId: z.uuid().optional(),
+  siteId: uuid().optional(),
   kind: z.enum(INSTRUMENT_KINDS).optional(),
   active: activeFilter,
   calibration: z.enum(['expired', 'due']).optional(),

@@ -1,25 +1,25 @@
 import { z } from 'zod';
 import './messages.js';
 import { email, roleSchema } from './auth.js';
-import { isoDate, pageQuery } from './common.js';
+import { isoDate, pageQuery, uuid } from './common.js';
 
 const name = z.string().trim().min(1, 'enter a name').max(120, 'use at most 120 characters');
 
 export const inviteBody = z.object({
   email,
   name,
-  siteId: z.uuid({ message: 'choose a site' }),
+  siteId: uuid('choose a site'),
   roles: z.array(roleSchema).min(1, 'give at least one role').max(5),
-  coveredSiteIds: z.array(z.uuid()).max(100).default([]),
+  coveredSiteIds: z.array(uuid()).max(100).default([]),
   accessEndsOn: isoDate.optional(),
 });
 
 export const updatePersonBody = z
   .object({
     name: name.optional(),
-    siteId: z.uuid({ message: 'choose a site' }).optional(),
+    siteId: uuid('choose a site').optional(),
     roles: z.array(roleSchema).min(1, 'give at least one role').max(5).optional(),
-    coveredSiteIds: z.array(z.uuid()).max(100).optional(),
+    coveredSiteIds: z.array(uuid()).max(100).optional(),
     active: z.boolean().optional(),
     deactivatedReason: z.string().trim().min(3, 'give a reason').max(500).optional(),
     accessEndsOn: isoDate.nullable().optional(),
@@ -27,7 +27,7 @@ export const updatePersonBody = z
   .strict();
 
 export const peopleQuery = pageQuery.extend({
-  siteId: z.uuid().optional(),
+  siteId: uuid().optional(),
   role: roleSchema.optional(),
   active: z.enum(['true', 'false']).optional(),
   sort: z.enum(['name', 'email', 'site', 'createdAt']).default('name'),

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
-import { pageQuery } from './common.js';
+import { pageQuery, uuid } from './common.js';
 import { OUTCOMES, PRACTICAL_STATUSES } from '../practicals/terms.js';
 
 export {
@@ -58,7 +58,7 @@ export const circuitSchema = z.object({
 export type Circuit = z.infer<typeof circuitSchema>;
 export type CircuitInput = z.input<typeof circuitSchema>;
 
-const id = (what: string) => z.uuid({ message: `choose the ${what}` });
+const id = (what: string) => uuid(`choose the ${what}`);
 
 export const openPracticalBody = z.object({
   technicianId: id('technician'),
@@ -88,11 +88,11 @@ export const practicalListQuery = pageQuery.extend({
   view: z.enum(['mine', 'site']).default('mine'),
   status: z.enum(PRACTICAL_STATUSES).optional(),
   outcome: z.enum(OUTCOMES).optional(),
-  siteId: z.uuid().optional(),
+  siteId: uuid().optional(),
   sort: z.enum(['heldAt', 'status']).default('heldAt'),
   dir: z.enum(['asc', 'desc']).default('desc'),
 });
 export type PracticalListQuery = z.infer<typeof practicalListQuery>;
 
 export const candidatesQuery = z.object({ q: z.string().trim().max(100).optional() });
-export const holdPointParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }), stepKey: z.uuid({ message: 'stepKey must be a UUID' }) });
+export const holdPointParams = z.object({ id: uuid('id must be a UUID'), stepKey: uuid('stepKey must be a UUID') });

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
-import { isoDate, pageQuery } from './common.js';
+import { isoDate, pageQuery, uuid } from './common.js';
 import { checklistSchema } from './checklists.js';
 
 export const PROCEDURE_CATEGORIES = ['dead-work', 'live-testing', 'live-fault-finding', 'commissioning', 'bench-equipment', 'general'] as const;
@@ -46,7 +46,7 @@ const listLine = z.string().trim().min(2, 'write at least 2 characters').max(300
 const list = (max: number) => z.array(listLine).max(max, `at most ${max} entries`);
 
 export const stepSchema = z.object({
-  key: z.uuid({ message: 'key must be a UUID' }).optional(),
+  key: uuid('key must be a UUID').optional(),
   text: z.string().trim().min(3, 'write the step (at least 3 characters)').max(2000, 'use at most 2000 characters'),
   caution: z.string().trim().max(1000, 'use at most 1000 characters').nullish().transform((v) => v || null),
   holdPoint: z.boolean().default(false),
@@ -75,14 +75,14 @@ export const saveDraftBody = z.object({
 export type SaveDraftBody = z.infer<typeof saveDraftBody>;
 export type SaveDraftInput = z.input<typeof saveDraftBody>;
 
-export const versionParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }), versionId: z.uuid({ message: 'versionId must be a UUID' }) });
-export const personParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }), userId: z.uuid({ message: 'userId must be a UUID' }) });
+export const versionParams = z.object({ id: uuid('id must be a UUID'), versionId: uuid('versionId must be a UUID') });
+export const personParams = z.object({ id: uuid('id must be a UUID'), userId: uuid('userId must be a UUID') });
 
 export const signBody = z.object({ password: z.string().min(1, 're-enter your password to sign').max(1024) });
 export const returnBody = z.object({ comment: z.string().trim().min(3, 'say what needs changing').max(4000) });
 export const withdrawBody = z.object({ reason: z.string().trim().min(3, 'give a reason').max(1000) });
 export const extensionBody = z.object({ dueOn: isoDate, reason: z.string().trim().min(3, 'give a reason').max(1000) });
-export const compareQuery = z.object({ from: z.uuid({ message: 'choose the older version' }), to: z.uuid({ message: 'choose the newer version' }) });
+export const compareQuery = z.object({ from: uuid('choose the older version'), to: uuid('choose the newer version') });
 export const reminderRunBody = z.object({
   offsets: z.array(z.number().int().min(0).max(365)).min(1).max(10).default([30, 7, 0]),
 });
@@ -108,7 +108,7 @@ export const ACK_STATE_LABELS: Record<AckState, string> = {
   'not-in-force': 'No version in force',
 };
 export const ackTableQuery = pageQuery.extend({
-  siteId: z.uuid().optional(),
+  siteId: uuid().optional(),
   state: z.enum(ACK_STATES).optional(),
 });
 export type AckTableQuery = z.infer<typeof ackTableQuery>;

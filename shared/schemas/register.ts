@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
-import { pageQuery } from './common.js';
+import { pageQuery, uuid } from './common.js';
 import { REGISTER_SORTS, REGISTER_STATES, REGISTER_VIEWS } from '../register/kinds.js';
 
 /** A moment with its offset, e.g. 2026-03-05T14:30:00Z or 2026-03-05T15:30:00+01:00. */
@@ -15,9 +15,9 @@ export const momentQuery = z.object({
 });
 
 export const registerFilter = momentQuery.extend({
-  siteId: z.uuid({ message: 'siteId must be a site id' }).optional(),
-  scopeId: z.uuid({ message: 'scopeId must be a scope id' }).optional(),
-  personId: z.uuid({ message: 'personId must be a person id' }).optional(),
+  siteId: uuid('siteId must be a site id').optional(),
+  scopeId: uuid('scopeId must be a scope id').optional(),
+  personId: uuid('personId must be a person id').optional(),
   q: z.string().trim().max(200).optional(),
   state: z.enum(REGISTER_STATES, { message: `use one of: ${REGISTER_STATES.join(', ')}` }).optional(),
   liveWork: bool.optional(),
@@ -29,22 +29,22 @@ export type RegisterFilter = z.infer<typeof registerFilter>;
 export type RegisterQuery = z.infer<typeof registerQuery>;
 
 export const matrixQuery = momentQuery.extend(pageQuery.shape).extend({
-  siteId: z.uuid({ message: 'siteId must be a site id' }).optional(),
+  siteId: uuid('siteId must be a site id').optional(),
   liveWork: bool.optional(),
   pageSize: z.coerce.number().int().min(1).max(100).default(25),
 });
 export type MatrixQuery = z.infer<typeof matrixQuery>;
 
-export const overviewQuery = z.object({ siteId: z.uuid({ message: 'siteId must be a site id' }).optional() });
+export const overviewQuery = z.object({ siteId: uuid('siteId must be a site id').optional() });
 export type OverviewQuery = z.infer<typeof overviewQuery>;
 
-export const personParam = z.object({ personId: z.uuid({ message: 'personId must be a person id' }) });
-export const authorisationParam = z.object({ authorisationId: z.uuid({ message: 'authorisationId must be an authorisation id' }) });
+export const personParam = z.object({ personId: uuid('personId must be a person id') });
+export const authorisationParam = z.object({ authorisationId: uuid('authorisationId must be an authorisation id') });
 
 export const incidentBody = z.object({
-  personId: z.uuid({ message: 'choose the person' }),
+  personId: uuid('choose the person'),
   at: moment,
-  benchId: z.uuid({ message: 'benchId must be a bench id' }).optional(),
+  benchId: uuid('benchId must be a bench id').optional(),
   note: z.string().trim().max(1000, 'use at most 1000 characters').default(''),
 }).strict();
 export type IncidentBody = z.infer<typeof incidentBody>;

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
-import { pageQuery } from './common.js';
+import { pageQuery, uuid } from './common.js';
 import { SIGNOFF_KINDS, SIGNOFF_STATUSES } from '../practicals/terms.js';
 
 export { SIGNOFF_KINDS, SIGNOFF_STATUSES, SIGNOFF_KIND_LABELS, SIGNOFF_STATUS_LABELS, COMPLETED_MEANING, COUNTERSIGNED_MEANING, type SignoffKind, type SignoffStatus } from '../practicals/terms.js';
@@ -12,10 +12,10 @@ export { SIGNOFF_KINDS, SIGNOFF_STATUSES, SIGNOFF_KIND_LABELS, SIGNOFF_STATUS_LA
 export const entryBody = z.object({
   checked: z.boolean({ message: 'tick or untick' }).optional(),
   text: z.string().trim().max(4000, 'use at most 4000 characters').optional(),
-  evidenceId: z.uuid({ message: 'choose an uploaded file' }).optional(),
+  evidenceId: uuid('choose an uploaded file').optional(),
   value: z.union([z.number({ message: 'enter a number' }).min(-1e9).max(1e9), z.literal('did-not-trip')], { error: 'enter a number, or "did-not-trip" for a trip test' }).optional(),
   unit: z.string().trim().min(1, 'give the unit').max(20).optional(),
-  instrumentId: z.uuid({ message: 'choose the instrument used' }).optional(),
+  instrumentId: uuid('choose the instrument used').optional(),
   /** Only where no expectation could be computed: the assessor's own judgement. */
   assessorVerdict: z.enum(['pass', 'fail'], { message: 'say whether the reading is acceptable' }).optional(),
   note: z.string().trim().max(1000, 'use at most 1000 characters').optional(),
@@ -23,10 +23,10 @@ export const entryBody = z.object({
 export type EntryBody = z.infer<typeof entryBody>;
 
 export const openSignoffBody = z.object({
-  procedureId: z.uuid({ message: 'choose the procedure' }),
-  versionId: z.uuid({ message: 'choose the procedure version' }),
-  checklistId: z.uuid({ message: 'choose the checklist' }),
-  benchId: z.uuid({ message: 'choose the bench' }).optional(),
+  procedureId: uuid('choose the procedure'),
+  versionId: uuid('choose the procedure version'),
+  checklistId: uuid('choose the checklist'),
+  benchId: uuid('choose the bench').optional(),
 });
 export type OpenSignoffBody = z.infer<typeof openSignoffBody>;
 
@@ -42,7 +42,7 @@ export const signoffListQuery = pageQuery.extend({
   view: z.enum(['mine', 'site']).default('mine'),
   status: z.enum(SIGNOFF_STATUSES).optional(),
   kind: z.enum(SIGNOFF_KINDS).optional(),
-  siteId: z.uuid().optional(),
+  siteId: uuid().optional(),
   /** Only what the reader could countersign: submitted self sign-offs of other people. */
   awaitingMe: z.enum(['true', 'false']).transform((v) => v === 'true').optional(),
   sort: z.enum(['updatedAt', 'submittedAt', 'status']).default('updatedAt'),
@@ -50,4 +50,4 @@ export const signoffListQuery = pageQuery.extend({
 });
 export type SignoffListQuery = z.infer<typeof signoffListQuery>;
 
-export const itemParams = z.object({ id: z.uuid({ message: 'id must be a UUID' }), itemId: z.uuid({ message: 'itemId must be a UUID' }) });
+export const itemParams = z.object({ id: uuid('id must be a UUID'), itemId: uuid('itemId must be a UUID') });

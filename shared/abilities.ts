@@ -6,7 +6,7 @@ import { recordRules } from './practicals/abilities.js';
 import { registerRules } from './register/abilities.js';
 
 export type Action = 'manage' | 'create' | 'read' | 'update' | 'delete' | 'invite' | 'assignRole' | 'approve' | 'review';
-export type SubjectName = 'User' | 'Site' | 'MailLog' | 'AuditLog' | 'Bench' | 'BenchCheck' | 'Instrument' | 'Evidence' | 'Procedure' | 'Acknowledgement' | 'ReviewReminder' | 'Scope' | 'Authorisation' | 'Certificate' | 'Reminder' | 'Signoff' | 'Practical' | 'Register' | 'Overview' | 'PersonRecord' | 'Finding' | 'all';
+export type SubjectName = 'User' | 'Site' | 'MailLog' | 'AuditLog' | 'Bench' | 'BenchCheck' | 'Instrument' | 'Evidence' | 'Procedure' | 'Acknowledgement' | 'ReviewReminder' | 'Scope' | 'Authorisation' | 'Certificate' | 'Reminder' | 'Signoff' | 'Practical' | 'Register' | 'Overview' | 'PersonRecord' | 'Finding' | 'Session' | 'all';
 export type Subject = SubjectName | (ForcedSubject<Exclude<SubjectName, 'all'>> & Record<string, any>);
 // Conditions are plain Mongo-style queries over a record's own fields (id, siteId, userId, …).
 export type AppAbility = MongoAbility<[Action, Subject], MongoQuery<Record<string, any>>>;
@@ -24,6 +24,11 @@ export interface Actor {
   /** Own site plus the sites an assessor or manager covers. */
   siteIds: readonly string[];
 }
+
+/** Roles only an admin may give, and whose holders only an admin may change. */
+export const ADMIN_ONLY_ROLES: readonly Role[] = ['manager', 'auditor', 'admin'];
+/** The fields of a person's record that decide their reach; nobody changes these on their own record. */
+export const SELF_LOCKED_FIELDS = ['siteId', 'coveredSiteIds', 'roles', 'accessEndsOn', 'active', 'deactivatedReason'] as const;
 
 /** One definition for server and client. Object rules use the record's own fields (id, siteId, userId). */
 export function defineAbilityFor(actor: Actor | null): AppAbility {
@@ -47,7 +52,9 @@ export function defineAbilityFor(actor: Actor | null): AppAbility {
 
   if (has('manager')) {
     can('read', 'User', { siteId: { $in: sites } });
-    can(['invite', 'update', 'assignRole'], 'User', { siteId: { $in: sites } });
+    // People of the sites they cover who hold none of the roles only an admin changes. The record carries
+    // its `roles`; for an invitation they are the roles asked for (none yet: only the site counts).
+    can(['invite', 'update', 'assignRole'], 'User', { siteId: { $in: sites }, roles: { $nin: [...ADMIN_ONLY_ROLES] } });
     can('manage', ['Bench', 'Instrument'], { siteId: { $in: sites } });
   }
   procedureRules({ can, cannot }, actor, has);
@@ -61,10 +68,14 @@ export function defineAbilityFor(actor: Actor | null): AppAbility {
   }
   if (has('admin')) {
     can(['read', 'invite', 'update', 'assignRole'], 'User');
+    can('delete', 'Session');
     can('manage', 'Site');
     can('read', 'MailLog');
     can('read', 'Evidence');
   }
+  // Nobody widens their own reach, whatever their roles: of their own record only the name is theirs to change.
+  cannot('update', 'User', [...SELF_LOCKED_FIELDS], { id: actor.id });
+  cannot('assignRole', 'User', { id: actor.id });
   return build() as AppAbility;
 }
 

@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, ilike, inArray, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, ilike, inArray, isNull, or, sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../db/client.js';
 import { sites, userRoles, users, userSites } from '../db/schema/index.js';
 import type { Role } from '../../shared/roles.js';
@@ -24,6 +24,18 @@ export async function rolesOf(db: Executor, userId: string): Promise<Role[]> {
 export async function coveredSitesOf(db: Executor, userId: string): Promise<string[]> {
   const rows = await db.select({ siteId: userSites.siteId }).from(userSites).where(eq(userSites.userId, userId));
   return rows.map((r) => r.siteId).sort();
+}
+
+/**
+ * Locks and lists the admins who keep the system administrable (active, no access end), in id order so two
+ * changes to admins queue behind each other: each then sees what the other left.
+ */
+export async function lockStandingAdmins(db: Executor): Promise<string[]> {
+  const admins = db.select({ id: userRoles.userId }).from(userRoles).where(eq(userRoles.role, 'admin'));
+  const rows = await db.select({ id: users.id }).from(users)
+    .where(and(eq(users.active, true), isNull(users.accessEndsOn), inArray(users.id, admins)))
+    .orderBy(asc(users.id)).for('update');
+  return rows.map((r) => r.id);
 }
 
 export async function insertUser(db: Executor, row: typeof users.$inferInsert) {

@@ -19,5 +19,9 @@ export function peopleRoutes(people: ReturnType<typeof makePeopleService>): Rout
         return { message: 'A new link was sent.' };
       },
     }),
+    route({
+      method: 'delete', path: '/people/:id/sessions', access: ['delete', 'Session'], params: uuidParam,
+      handler: async ({ actor, params, req }) => people.endSessions(actor!, params.id, req.sessionID),
+    }),
   ];
 }

@@ -17,6 +17,7 @@ export const rows: MatrixRows = {
   'GET /people/:id': [...everyone],
   'PATCH /people/:id': [...everyone],
   'POST /people/:id/invitation': ['manager', 'admin'],
+  'DELETE /people/:id/sessions': ['admin'],
   'GET /sites': [...everyone],
   'POST /sites': ['admin'],
   'PATCH /sites/:id': ['admin'],

@@ -33,8 +33,9 @@ export function authRoutes(auth: AuthService): RouteDef[] {
     }),
     route({
       method: 'put', path: '/session/password', access: 'signed-in', body: changePasswordBody,
-      handler: async ({ actor, body }) => {
-        await auth.changePassword(actor!.id, body.currentPassword, body.newPassword);
+      handler: async ({ req, actor, body }) => {
+        // Every other session of this person ends; this one (the person who knows the new password) stays.
+        await auth.changePassword(actor!.id, body.currentPassword, body.newPassword, req.sessionID);
         return undefined;
       },
     }),

@@ -6,7 +6,9 @@ import { endOfLocalDay } from '../../shared/time.js';
 import { AppError, notFound, unprocessable } from '../errors.js';
 import { findUserByEmail, findUserById, rolesOf, coveredSitesOf, updateUser, type UserRow } from '../people/people.repository.js';
 import { findSite } from '../sites/sites.repository.js';
-import { hashPassword, passwordProblem, verifyPassword } from './password.js';
+import { hashPassword, passwordProblem } from './password.js';
+import { lockedError, makePasswordCheck } from './password-check.js';
+import { deleteSessionsOf } from './sessions.repository.js';
 import { findTokenByHash, insertToken, markTokenUsed, retireOpenTokens } from './tokens.repository.js';
 import { hashToken, newToken } from './tokens.js';
 
@@ -14,6 +16,7 @@ const BAD_CREDENTIALS = () => new AppError(401, 'bad_credentials', 'E-mail or pa
 
 export function makeAuthService(deps: Deps) {
   const { db, clock, config, audit, mailer } = deps;
+  const passwords = makePasswordCheck(deps);
 
   /** An auditor account with an end date stops working after the end of that day at its site. */
   async function accessEnded(user: UserRow): Promise<boolean> {
@@ -24,29 +27,12 @@ export function makeAuthService(deps: Deps) {
 
   async function signIn(email: string, password: string): Promise<UserRow> {
     const user = await findUserByEmail(db, email);
-    const ok = await verifyPassword(password, user?.passwordHash ?? null);
-    if (!user || !user.passwordHash) throw BAD_CREDENTIALS();
-    const now = clock.now();
-    if (user.lockedUntil && user.lockedUntil > now) {
-      const mins = Math.ceil((user.lockedUntil.getTime() - now.getTime()) / 60_000);
-      throw new AppError(401, 'locked', `Too many failed sign-ins: this account is locked for ${mins} more minute(s).`);
-    }
-    if (!ok) {
-      await db.transaction(async (tx) => {
-        const fresh = await findUserById(tx, user.id, true);
-        const failed = (fresh?.failedSignIns ?? 0) + 1;
-        const lock = failed >= config.signIn.lockoutThreshold;
-        await updateUser(tx, user.id, lock ? { failedSignIns: 0, lockedUntil: new Date(now.getTime() + config.signIn.lockoutMs) } : { failedSignIns: failed });
-        if (lock) await audit(tx, { actorId: null, action: 'account.locked', entity: 'user', entityId: user.id, newValues: { failedSignIns: failed } });
-      });
-      throw BAD_CREDENTIALS();
-    }
+    const verdict = await passwords.check(user, password, 'sign-in');
+    if (verdict.result === 'locked') throw lockedError(verdict.minutes);
+    if (verdict.result === 'wrong' || !user) throw BAD_CREDENTIALS();
     if (!user.active) throw new AppError(401, 'deactivated', 'This account has been deactivated. Ask your workshop manager.');
     if (await accessEnded(user)) throw new AppError(401, 'access_ended', 'The access period of this account has ended.');
-    await db.transaction(async (tx) => {
-      await updateUser(tx, user.id, { failedSignIns: 0, lockedUntil: null });
-      await audit(tx, { actorId: user.id, action: 'session.signed_in', entity: 'user', entityId: user.id });
-    });
+    await db.transaction((tx) => audit(tx, { actorId: user.id, action: 'session.signed_in', entity: 'user', entityId: user.id }));
     return user;
   }
 
@@ -98,7 +84,9 @@ export function makeAuthService(deps: Deps) {
       const passwordHash = await hashPassword(password);
       await markTokenUsed(tx, row.token.id, clock.now());
       await updateUser(tx, row.user.id, { passwordHash, failedSignIns: 0, lockedUntil: null, updatedAt: clock.now() });
-      await audit(tx, { actorId: row.user.id, action: 'account.password_set', entity: 'user', entityId: row.user.id, newValues: { via: row.token.purpose } });
+      // Whoever held a session with the old password (or got one through it) is signed out everywhere.
+      const sessionsEnded = await deleteSessionsOf(tx, row.user.id);
+      await audit(tx, { actorId: row.user.id, action: 'account.password_set', entity: 'user', entityId: row.user.id, newValues: { via: row.token.purpose, sessionsEnded } });
       return row.user.email;
     });
     return { email: hash };
@@ -109,9 +97,12 @@ export function makeAuthService(deps: Deps) {
     if (user && user.active) await issueLink(user.id, user.email, user.name, 'reset', null);
   }
 
-  async function changePassword(userId: string, current: string, next: string) {
+  /** Ends every other session of the person; the one that made the change (`keepSid`) stays. */
+  async function changePassword(userId: string, current: string, next: string, keepSid: string) {
     const user = await findUserById(db, userId);
-    if (!user || !(await verifyPassword(current, user.passwordHash))) {
+    const verdict = await passwords.check(user, current, 'password-change');
+    if (verdict.result === 'locked') throw lockedError(verdict.minutes, 'currentPassword');
+    if (verdict.result === 'wrong' || !user) {
       throw unprocessable('currentPassword: the current password is not right', { currentPassword: 'the current password is not right' });
     }
     const problem = passwordProblem(next, [user.email.split('@')[0], ...user.name.split(/\s+/)]);
@@ -119,16 +110,23 @@ export function makeAuthService(deps: Deps) {
     const passwordHash = await hashPassword(next);
     await db.transaction(async (tx) => {
       await updateUser(tx, userId, { passwordHash, updatedAt: clock.now() });
-      await audit(tx, { actorId: userId, action: 'account.password_changed', entity: 'user', entityId: userId });
+      const sessionsEnded = await deleteSessionsOf(tx, userId, keepSid);
+      await audit(tx, { actorId: userId, action: 'account.password_changed', entity: 'user', entityId: userId, newValues: { sessionsEnded } });
     });
   }
 
-  /** Electronic signatures: the signer re-enters their password at the moment of signing. */
+  /**
+   * Electronic signatures: the signer re-enters their password at the moment of signing, through the same
+   * check as sign-in (a wrong one counts towards the lock, a locked account cannot sign). Called before the
+   * transaction of the signed change, so a refusal changes nothing but the count.
+   */
   async function confirmSignature(userId: string, password: string | undefined) {
+    if (!password) throw unprocessable('password: re-enter your own password to sign', { password: 're-enter your own password to sign' });
     const user = await findUserById(db, userId);
-    if (!password || !user || !(await verifyPassword(password, user.passwordHash))) {
-      throw unprocessable('password: re-enter your own password to sign', { password: 'the password is not right' });
-    }
+    const verdict = await passwords.check(user, password, 'signature');
+    if (verdict.result === 'locked') throw lockedError(verdict.minutes, 'password');
+    if (verdict.result === 'wrong' || !user) throw unprocessable('password: re-enter your own password to sign', { password: 'the password is not right' });
+    if (!user.active) throw unprocessable('password: this account has been deactivated', { password: 'this account has been deactivated' });
     return user;
   }
 

@@ -26,9 +26,24 @@ describe('the set-password page', () => {
         : { status: 422, body: { error: { code: 'unprocessable', message: 'password: this password is too common; choose another', fields: { password: 'this password is too common; choose another' } } } },
     );
     await mountWith(SetPasswordView, { user: null, path: `/set-password?token=${TOKEN}` });
-    await type(getByRole('textbox', 'New password'), 'passwordpassword');
+    await type(getByRole('textbox', 'New password'), 'maple cobalt river thimble'); // passes the page's own check
     getByRole('button', 'Set the password').click();
     await vi.waitFor(() => expect(messagesBeside(getByRole('textbox', 'New password'))).toBe('this password is too common; choose another'));
+  });
+
+  it('when a common password with a year added is typed, then the page says so before anything is sent', async () => {
+    const calls = fakeFetch((c) => (c.url.pathname === '/api/password/link' ? { body: link } : undefined));
+    await mountWith(SetPasswordView, { user: null, path: `/set-password?token=${TOKEN}` });
+    await type(getByRole('textbox', 'New password'), 'Password2024!!!!');
+    await vi.waitFor(() => expect(messagesBeside(getByRole('textbox', 'New password'))).toMatch(/^this password is too common/), { timeout: 10_000 });
+    expect(calls.filter((c) => c.method === 'POST')).toHaveLength(0);
+  });
+
+  it('when the password holds the person\'s name with accents dropped, then the page says so while typing', async () => {
+    fakeFetch((c) => (c.url.pathname === '/api/password/link' ? { body: link } : undefined));
+    await mountWith(SetPasswordView, { user: null, path: `/set-password?token=${TOKEN}` });
+    await type(getByRole('textbox', 'New password'), 'amelie on the night bus');
+    await vi.waitFor(() => expect(messagesBeside(getByRole('textbox', 'New password'))).toMatch(/do not use your name/), { timeout: 10_000 });
   });
 
   it('when the password is too short, then nothing is sent and the rule shows', async () => {

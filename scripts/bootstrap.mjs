@@ -2,7 +2,7 @@
 // Needs nothing but Node: installs the dependencies when they are missing or stale, then hands over
 // to the TypeScript script for the command (start, test, dev, bench).
 import { spawnSync, spawn } from 'node:child_process';
-import { existsSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, rmSync, statSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import path from 'node:path';
 
@@ -16,13 +16,35 @@ if (!known.includes(command)) {
 
 const installed = path.join(root, 'node_modules', '.package-lock.json');
 const lock = path.join(root, 'package-lock.json');
-const stale = !existsSync(installed) || statSync(installed).mtimeMs < statSync(lock).mtimeMs;
-if (stale) {
-  console.log('[breakover] installing dependencies (npm ci)…');
-  const r = spawnSync('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root, stdio: 'inherit' });
-  if (r.status !== 0) {
-    console.error('[breakover] npm ci failed; see the messages above');
-    process.exit(r.status ?? 1);
+const isStale = () => !existsSync(installed) || statSync(installed).mtimeMs < statSync(lock).mtimeMs;
+if (isStale()) {
+  // Two commands started at once (a test run beside npm start) must not run npm ci over each other:
+  // one installs while the other waits, then sees the install done.
+  const guard = path.join(root, '.install-lock');
+  const deadline = Date.now() + 15 * 60_000;
+  for (;;) {
+    try {
+      mkdirSync(guard);
+      break;
+    } catch {
+      // A guard older than the longest install is left over from a killed run.
+      if (existsSync(guard) && Date.now() - statSync(guard).mtimeMs > 15 * 60_000) rmSync(guard, { recursive: true, force: true });
+      if (Date.now() > deadline) break;
+      spawnSync('sleep', ['1']);
+    }
+  }
+  try {
+    if (isStale()) {
+      console.log('[breakover] installing dependencies (npm ci)…');
+      const r = spawnSync('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root, stdio: 'inherit' });
+      if (r.status !== 0) {
+        console.error('[breakover] npm ci failed; see the messages above');
+        rmSync(guard, { recursive: true, force: true });
+        process.exit(r.status ?? 1);
+      }
+    }
+  } finally {
+    rmSync(guard, { recursive: true, force: true });
   }
 }
 

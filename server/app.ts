@@ -2,7 +2,6 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import express, { Router } from 'express';
 import helmet from 'helmet';
-import rateLimit from 'express-rate-limit';
 import type pg from 'pg';
 import type { Config } from './config.js';
 import { systemClock, type Clock } from './clock.js';
@@ -15,6 +14,7 @@ import { mountRoutes } from './routing.js';
 import { actorMiddleware, sessionMiddleware } from './middleware/session.js';
 import { originCheck } from './middleware/csrf.js';
 import { errorHandler, notFoundApi } from './middleware/errors.js';
+import { passwordAttemptLimits } from './auth/rate-limit.js';
 import type { JobsOptions } from './jobs/index.js';
 
 export interface AppOptions {
@@ -61,18 +61,12 @@ export function createApp(opts: AppOptions) {
   api.use(express.json({ limit: '256kb' }));
   api.use(originCheck(config.allowedOrigins));
   api.use(sessionMiddleware(pool, config));
-  const limiter = rateLimit({
-    windowMs: config.signIn.rateWindowMs,
-    limit: config.signIn.rateLimit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, res) => {
-      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many attempts from this address; wait a few minutes.' } });
-    },
-  });
-  api.post('/session', limiter);
-  api.post('/password/forgot', limiter);
+  // Password attempts per address, counted in PostgreSQL so the limit holds across server processes.
+  const limits = passwordAttemptLimits(deps);
+  api.post('/session', limits.signIn);
+  api.post('/password/forgot', limits.signIn);
   api.use(actorMiddleware(services.auth));
+  api.use(limits.passwords);
   mountRoutes(api, routeTable);
   api.use(notFoundApi);
   app.use('/api', api);

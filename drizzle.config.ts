@@ -6,5 +6,6 @@ export default defineConfig({
   out: './drizzle',
   // connect-pg-simple owns the session table; keep drizzle-kit away from it.
   tablesFilter: ['!session'],
-  dbCredentials: { url: process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/breakover' },
+  // drizzle-kit reads and changes the schema: the owner's login, never the application's.
+  dbCredentials: { url: process.env.DATABASE_OWNER_URL ?? 'postgres://postgres@127.0.0.1:54329/breakover' },
 });

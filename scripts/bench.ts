@@ -2,6 +2,7 @@
 import { chmodSync, mkdtempSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import pg from 'pg';
 import request from 'supertest';
 import { ensureDatabase, findPostgresBin, initCluster, removeCluster, startCluster, stopCluster } from './lib/cluster.js';
 import { freePort } from './lib/ports.js';
@@ -33,12 +34,13 @@ async function main() {
   await startCluster(bin, dataDir, port);
   try {
     await ensureDatabase(`postgres://postgres@127.0.0.1:${port}/postgres`, 'bench');
-    const url = `postgres://postgres@127.0.0.1:${port}/bench`;
-    await runMigrations(url);
+    const ownerUrl = `postgres://postgres@127.0.0.1:${port}/bench`;
+    const url = `postgres://breakover_app@127.0.0.1:${port}/bench`;
+    await runMigrations(ownerUrl);
     const clock = new SettableClock('2026-06-01T08:00:00Z');
     const config = loadConfig({ DATABASE_URL: url, SESSION_SECRET: 'bench-secret-'.padEnd(40, 'x'), SIGNIN_RATE_LIMIT: '100000', MAIL_OUTBOX_DIR: path.join(parent, 'outbox'), STATIC_DIR: path.join(parent, 'none') });
     const built = createApp({ config, clock });
-    const ctx: BenchContext = { ...built, clock, url, http: request.agent(built.app) };
+    const ctx: BenchContext = { ...built, clock, url, http: request.agent(built.app), analyze: () => analyzeAsOwner(ownerUrl) };
     const rows: string[][] = [];
     for (const suite of BENCH_SUITES) {
       const t0 = performance.now();
@@ -55,6 +57,17 @@ async function main() {
   } finally {
     stopCluster(bin, dataDir);
     removeCluster(parent);
+  }
+}
+
+/** Fresh planner statistics after bulk loads: only the tables' owner may ANALYZE them, not the app's login. */
+async function analyzeAsOwner(ownerUrl: string): Promise<void> {
+  const client = new pg.Client({ connectionString: ownerUrl });
+  await client.connect();
+  try {
+    await client.query('analyze');
+  } finally {
+    await client.end();
   }
 }
 

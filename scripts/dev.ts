@@ -4,6 +4,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { runMigrations } from '../server/db/migrate.js';
 import { createDatabase, createPool } from '../server/db/client.js';
+import { assertAppLogin } from '../server/db/login-check.js';
 import { systemClock } from '../server/clock.js';
 import { seedDemoIfEmpty } from '../server/seed/index.js';
 import { localDatabase, persistentSecret } from './lib/local-db.js';
@@ -15,7 +16,9 @@ const log = (s: string) => console.log(`[dev] ${s}`);
 
 async function main() {
   const db = await localDatabase(root, dataRoot, log);
-  await runMigrations(db.url);
+  await runMigrations(db.ownerUrl);
+  // The seed goes through the app's own repositories, so it runs as the app's login too.
+  await assertAppLogin(db.url);
   const pool = createPool(db.url, 2);
   await seedDemoIfEmpty(createDatabase(pool), systemClock);
   await pool.end();
@@ -25,6 +28,7 @@ async function main() {
   const env = {
     ...process.env,
     DATABASE_URL: db.url,
+    DATABASE_OWNER_URL: undefined, // the server never needs the owner's login
     PORT: String(apiPort),
     PUBLIC_URL: viteUrl,
     EXTRA_ORIGINS: `http://127.0.0.1:${vitePort},http://localhost:${apiPort}`,

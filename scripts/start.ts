@@ -4,6 +4,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { runMigrations } from '../server/db/migrate.js';
 import { createDatabase, createPool } from '../server/db/client.js';
+import { assertAppLogin } from '../server/db/login-check.js';
 import { systemClock } from '../server/clock.js';
 import { seedDemoIfEmpty } from '../server/seed/index.js';
 import { DEMO_PASSWORD, DEMO_SIGN_INS } from '../server/seed/demo-people.js';
@@ -18,7 +19,9 @@ const log = (s: string) => console.log(`[breakover] ${s}`);
 async function main() {
   const db = await localDatabase(root, dataRoot, log);
   log(`database: ${db.where}`);
-  await runMigrations(db.url);
+  await runMigrations(db.ownerUrl);
+  // The seed goes through the app's own repositories, so it runs as the app's login too.
+  await assertAppLogin(db.url);
   const pool = createPool(db.url, 2);
   if (await seedDemoIfEmpty(createDatabase(pool), systemClock)) log('seeded the demo scenario');
   await pool.end();
@@ -29,6 +32,7 @@ async function main() {
   const env = {
     ...process.env,
     DATABASE_URL: db.url,
+    DATABASE_OWNER_URL: undefined, // the server never needs the owner's login
     PORT: String(port),
     PUBLIC_URL: publicUrl,
     EXTRA_ORIGINS: [process.env.EXTRA_ORIGINS, `http://127.0.0.1:${port}`].filter(Boolean).join(','),

@@ -1,7 +1,12 @@
 import { loadConfig } from './config.js';
 import { createApp } from './app.js';
+import { assertAppLogin } from './db/login-check.js';
 
 const config = loadConfig();
+await assertAppLogin(config.databaseUrl).catch((err: Error) => {
+  console.error(`[server] ${err.message}`);
+  process.exit(1);
+});
 const { app, close, jobsReady } = createApp({ config, startJobs: true });
 await jobsReady;
 const server = app.listen(config.port, config.host, () => {

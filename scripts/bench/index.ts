@@ -12,7 +12,8 @@ export interface BenchCase {
   run: () => Promise<unknown>;
 }
 
-export type BenchContext = ReturnType<typeof createApp> & { clock: SettableClock; url: string; http: Agent };
+/** `url` is the app's login; `analyze` refreshes statistics as the owner after a bulk load. */
+export type BenchContext = ReturnType<typeof createApp> & { clock: SettableClock; url: string; http: Agent; analyze: () => Promise<void> };
 export type BenchSuite = (ctx: BenchContext) => Promise<BenchCase[]>;
 
 /** Each feature adds its suite here; suites run in order on one database and may build on earlier data. */

@@ -6,7 +6,7 @@ const PEOPLE = 10_000;
 const SITES = 50;
 
 /** 10,000 people over 50 sites (the design scale), then the people table as an admin and a manager. */
-export const peopleSuite: BenchSuite = async ({ deps, http, clock }) => {
+export const peopleSuite: BenchSuite = async ({ deps, http, clock, analyze }) => {
   const hash = await hashPassword('bench person password 1');
   const now = clock.now().toISOString();
   await deps.db.execute(sql`insert into sites (code, name, time_zone, person_term, created_at)
@@ -17,7 +17,7 @@ export const peopleSuite: BenchSuite = async ({ deps, http, clock }) => {
   await deps.db.execute(sql`insert into user_roles (user_id, role)
     select id, case when random() < 0.8 then 'technician' when random() < 0.5 then 'assessor' else 'manager' end from users`);
   await deps.db.execute(sql`insert into user_roles (user_id, role) select id, 'admin' from users where email = 'person1@bench.invalid'`);
-  await deps.db.execute(sql`analyze`);
+  await analyze();
   const res = await http.post('/api/session').send({ email: 'person1@bench.invalid', password: 'bench person password 1' });
   if (res.status !== 200) throw new Error(`bench sign-in failed: ${res.status}`);
   const someone = (await http.get('/api/people').query({ q: 'Person 04242' })).body.items[0].id;

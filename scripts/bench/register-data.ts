@@ -10,7 +10,7 @@ const q = (db: Database, s: ReturnType<typeof sql>) => db.execute(s);
  * began some time in the last two years and ran a year; most that ended were renewed; some were suspended
  * (and most of those put right), a few revoked, and the rest of the ended ones lapsed.
  */
-export async function seedRegisterHistory(db: Database, now: Date, scopes: number) {
+export async function seedRegisterHistory(db: Database, now: Date, scopes: number, analyze: () => Promise<void>) {
   const t = sql`${now.toISOString()}::timestamptz`;
   const [admin] = (await db.execute(sql`select id, name from users where email = 'person1@bench.invalid'`)).rows as { id: string; name: string }[];
   await q(db, sql`insert into scopes (code, title, description, max_voltage_v, max_current_a, allows_live_work, validity_months, reminder_offsets_days, certificate_grace_days, active, created_at, updated_at, redecided_at)
@@ -55,7 +55,7 @@ export async function seedRegisterHistory(db: Database, now: Date, scopes: numbe
     where p.ends_at + interval '1 hour' < ${t}
       and not exists (select 1 from authorisation_events e where e.period_id = p.id and e.kind in ('revoked', 'lapsed'))
       and not exists (select 1 from authorisation_periods n where n.previous_period_id = p.id)`);
-  await q(db, sql`analyze`);
+  await analyze();
   const [c] = (await db.execute(sql`select (select count(*) from authorisations)::int as authorisations,
     (select count(*) from authorisation_periods)::int as periods, (select count(*) from authorisation_events)::int as events`)).rows as { authorisations: number; periods: number; events: number }[];
   return c;

@@ -11,7 +11,7 @@ const SCOPES = 20;
  */
 export const registerSuite: BenchSuite = async (ctx) => {
   const { deps, http, clock, services } = ctx;
-  const counts = await seedRegisterHistory(deps.db, clock.now(), SCOPES);
+  const counts = await seedRegisterHistory(deps.db, clock.now(), SCOPES, ctx.analyze);
   const scale = `${Math.round(counts.authorisations / 1000)}k auth., ${Math.round(counts.periods / 1000)}k periods, ${Math.round(counts.events / 1000)}k events`;
   const [site] = (await deps.db.execute(sql`select id from sites where code = 'S-7'`)).rows as { id: string }[];
   const [holder] = (await deps.db.execute(sql`select holder_id as id from authorisations group by holder_id order by count(*) desc, holder_id limit 1`)).rows as { id: string }[];

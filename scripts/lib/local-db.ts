@@ -5,16 +5,19 @@ import { ensureDatabase, findPostgresBin, initCluster, isRunning, resolveDataDir
 import { isPortFree, portOrFree } from './ports.js';
 
 export interface LocalDb {
+  /** The application's login (user breakover_app): the server, the seed. */
   url: string;
+  /** The owner's: migrations and the job queue's set-up only. */
+  ownerUrl: string;
   stop: () => void;
   where: string;
 }
 
 const DEFAULT_PG_PORT = 54329;
 
-/** DATABASE_URL when set; otherwise the project's own cluster under .data/ (or where postgres can reach). */
+/** DATABASE_URL and DATABASE_OWNER_URL when set; otherwise the project's own cluster under .data/ (or where postgres can reach). */
 export async function localDatabase(root: string, dataRoot: string, log: (s: string) => void): Promise<LocalDb> {
-  if (process.env.DATABASE_URL) return { url: process.env.DATABASE_URL, stop: () => undefined, where: 'DATABASE_URL' };
+  if (process.env.DATABASE_URL || process.env.DATABASE_OWNER_URL) return externalDatabase(process.env);
   const bin = findPostgresBin(log);
   const { dir, moved } = resolveDataDir(dataRoot, root);
   if (moved) log(`the postgres user cannot enter ${dataRoot}; the database cluster lives in ${dir}`);
@@ -28,7 +31,26 @@ export async function localDatabase(root: string, dataRoot: string, log: (s: str
   await startCluster(bin, dir, port);
   const admin = `postgres://postgres@127.0.0.1:${port}/postgres`;
   await ensureDatabase(admin, 'breakover');
-  return { url: `postgres://postgres@127.0.0.1:${port}/breakover`, stop: () => stopCluster(bin, dir), where: `${dir} (port ${port})` };
+  // Trust on loopback (initdb --auth=trust, listening on 127.0.0.1 only): the app's login needs no password.
+  return {
+    url: `postgres://breakover_app@127.0.0.1:${port}/breakover`,
+    ownerUrl: `postgres://postgres@127.0.0.1:${port}/breakover`,
+    stop: () => stopCluster(bin, dir),
+    where: `${dir} (port ${port})`,
+  };
+}
+
+/** An existing database: the app's login and the owner's are two URLs, and both are needed. */
+export function externalDatabase(env: Record<string, string | undefined>): LocalDb {
+  const url = env.DATABASE_URL;
+  const ownerUrl = env.DATABASE_OWNER_URL;
+  if (!url || !ownerUrl) {
+    throw new Error(
+      'DATABASE_URL is where the application logs in, as its own role breakover_app; DATABASE_OWNER_URL is the ' +
+        `owner's login, used only for migrations. Set both (${url ? 'DATABASE_OWNER_URL' : 'DATABASE_URL'} is missing); see the README.`,
+    );
+  }
+  return { url, ownerUrl, stop: () => undefined, where: 'DATABASE_URL' };
 }
 
 export function persistentSecret(dataRoot: string): string {

@@ -3,6 +3,7 @@ import type { Deps } from '../deps.js';
 import type { Reminders, SweepResult } from '../reminders/reminders.service.js';
 import { AppError } from '../errors.js';
 import { QUEUES, QUEUE_OPTIONS, SWEEP_CRON } from './queues.js';
+import { JOBS_SCHEMA } from './install.js';
 
 export interface JobsOptions {
   /** How often an idle worker looks for work (pg-boss allows 0.5 s at least). */
@@ -12,8 +13,9 @@ export interface JobsOptions {
 }
 
 /**
- * One pg-boss per app process, on the owner connection (DATABASE_URL without the application role) and
- * its own schema. Workers receive arrays of jobs. Nothing runs until start(); stop() drains and closes.
+ * One pg-boss per app process, on the application's own login (DATABASE_URL) and its own schema, which
+ * the migrations set up (installJobQueues): here it only checks it. Workers receive arrays of jobs.
+ * Nothing runs until start(); stop() drains and closes.
  */
 /** `alongside` runs with every sweep: other once-only reminder work (procedure reviews due). */
 export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Promise<unknown>)[] = []) {
@@ -28,11 +30,14 @@ export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Pro
   }
 
   async function boot(opts: JobsOptions) {
-    const b = new PgBoss({ connectionString: deps.config.databaseUrl, schema: 'pgboss', max: 4, application_name: 'breakover-jobs', schedule: opts.schedule !== false });
+    const b = new PgBoss({ connectionString: deps.config.databaseUrl, schema: JOBS_SCHEMA, max: 4, application_name: 'breakover-jobs', migrate: false, schedule: opts.schedule !== false });
     b.on('error', (err) => console.error(`[jobs] ${err.message}`));
-    await b.start();
-    // In sequence, and only when missing: creating one queue from two processes at once can deadlock.
-    for (const q of QUEUE_OPTIONS) if (!(await b.getQueue(q.name))) await b.createQueue(q.name, q.options);
+    await b.start().catch((err: Error) => {
+      throw new Error(`the job queue could not start (${err.message}); the migrations, run as the database owner, set it up`);
+    });
+    for (const q of QUEUE_OPTIONS) {
+      if (!(await b.getQueue(q.name))) throw new Error(`the job queue ${q.name} is missing: run the migrations as the database owner`);
+    }
     if (opts.schedule !== false) await b.schedule(QUEUES.sweep, SWEEP_CRON, { scheduled: true }, { tz: 'UTC' });
     const work = { batchSize: 1, pollingIntervalSeconds: opts.pollSeconds ?? 2 };
     await b.work(QUEUES.sweep, work, async (jobs) => {

@@ -1,6 +1,6 @@
 import type PgBoss from 'pg-boss';
 
-/** Every queue, created once at boot in this order (pg-boss 10 needs a queue before the first send). */
+/** Every queue, created once by the migrations in this order (pg-boss 10 needs a queue before the first send). */
 export const QUEUES = {
   sweep: 'reminders-sweep',
   deliver: 'reminders-deliver',

@@ -23,7 +23,7 @@ const countPublished = async (id: string) =>
   (await t.ownerQuery(`select count(*)::int as n from procedure_versions where procedure_id = $1 and status = 'published'`, [id])).rows[0].n;
 
 async function client() {
-  const c = new pg.Client({ connectionString: t.database.ownerUrl, options: '-c role=breakover_app' });
+  const c = new pg.Client({ connectionString: t.database.url });
   await c.connect();
   return c;
 }

@@ -27,7 +27,7 @@ afterAll(() => {
 async function start(env: Record<string, string>): Promise<{ proc: ChildProcess; output: () => string }> {
   const proc = spawn(process.execPath, ['scripts/bootstrap.mjs', 'start'], {
     cwd: path.resolve('.'),
-    env: { ...process.env, ...env, DATABASE_URL: '' },
+    env: { ...process.env, ...env, DATABASE_URL: '', DATABASE_OWNER_URL: '' },
     detached: true,
     stdio: ['ignore', 'pipe', 'pipe'],
   });

@@ -7,7 +7,10 @@ function admin(): string {
   return url;
 }
 
-/** A fresh database copied from the migrated template; each test file gets its own. */
+/**
+ * A fresh database copied from the migrated template; each test file gets its own. `url` logs in as the
+ * application's role (breakover_app), as the server does; `ownerUrl` as the owner, for tamper tests.
+ */
 export async function createTestDatabase(): Promise<{ url: string; ownerUrl: string; drop: () => Promise<void> }> {
   const name = `t_${randomBytes(6).toString('hex')}`;
   const client = new pg.Client({ connectionString: admin() });
@@ -23,10 +26,14 @@ export async function createTestDatabase(): Promise<{ url: string; ownerUrl: str
     }
   }
   await client.end();
-  const url = admin().replace(/\/[^/]*$/, `/${name}`);
+  const owner = new URL(admin());
+  owner.pathname = `/${name}`;
+  const app = new URL(owner);
+  app.username = 'breakover_app';
+  app.password = '';
   return {
-    url,
-    ownerUrl: url,
+    url: app.toString(),
+    ownerUrl: owner.toString(),
     drop: async () => {
       const c = new pg.Client({ connectionString: admin() });
       await c.connect();

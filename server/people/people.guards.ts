@@ -30,6 +30,8 @@ export const subjectOfPerson = (p: PersonState) => subjectOf('User', { ...p.user
 /** Each field sent must be one the actor may change on this person (the rules in shared/abilities.ts). */
 export function checkFields(actor: Actor, ability: AppAbility, before: PersonState, body: UpdatePersonBody) {
   const target = subjectOfPerson(before);
+  // An empty change writes nothing, but still only for someone the actor may change.
+  if (!Object.keys(body).length && !ability.can('update', target)) throw refuse('id', 'you may not change this person');
   for (const f of Object.keys(body) as Field[]) {
     const action = f === 'roles' || f === 'coveredSiteIds' ? 'assignRole' : 'update';
     if (ability.can(action, target, f)) continue;
@@ -51,6 +53,7 @@ export function checkGrants(actor: Actor, ability: AppAbility, before: PersonSta
   if (body.siteId !== undefined && !mayPlace(body.siteId)) throw refuse('siteId', 'you may not place people at that site');
   if (body.coveredSiteIds?.some((s) => !mayPlace(s))) throw refuse('coveredSiteIds', 'you may not give a site you do not cover yourself');
   // The person as they would be after the change must still be someone the actor may change.
+  if (!body.roles && body.siteId === undefined) return;
   const after = subjectOf('User', { ...before.user, siteId: body.siteId ?? before.user.siteId, roles: body.roles ?? before.roles });
   if (!ability.can('update', after)) throw refuse(body.roles ? 'roles' : 'siteId', 'the person would be out of your reach after this change');
 }

@@ -41,6 +41,7 @@ export function makePersonUpdate(deps: Deps) {
       if (body.siteId || body.coveredSiteIds) await checkSitesExist(tx, [body.siteId ?? before.user.siteId, ...(body.coveredSiteIds ?? [])]);
       if (body.active === false && !body.deactivatedReason) throw unprocessable('deactivatedReason: give a reason', { deactivatedReason: 'give a reason' });
       if (mayUnseatAdmin) checkLastAdmin(before, body, standing.filter((a) => a !== id));
+      if (!fields.length) return;
 
       const patch: Parameters<typeof repo.updateUser>[2] = { updatedAt: clock.now() };
       if (body.name !== undefined) patch.name = body.name;

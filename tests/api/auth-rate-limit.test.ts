@@ -2,6 +2,7 @@ import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import request from 'supertest';
 import { makeTestApp, PUBLIC_URL, type TestApp } from '../support/app.js';
 import { createApp } from '../../server/app.js';
+import { PgRateLimitStore } from '../../server/auth/rate-limit.store.js';
 import { DEMO, DEMO_PASSWORD, signIn } from '../support/people.js';
 
 // Two server processes on one database: two apps, each with its own pool, share the database only.
@@ -61,6 +62,14 @@ describe('the sign-in rate limit is kept in the database', () => {
     expect(over.body.error.fields).toEqual({ password: 'too many password attempts from this address; wait 5 minute(s) and try again' });
     expect((await guess(1)).status).toBe(429);
     t.clock.advance(t.config.signIn.lockoutMs);
+  });
+
+  it('when two processes count the same address at the same moment, then every hit is counted exactly once', async () => {
+    const stores = [new PgRateLimitStore(t.deps.db, t.clock, 'race:'), new PgRateLimitStore(second.deps.db, t.clock, 'race:')];
+    for (const s of stores) s.init({ windowMs: t.config.signIn.rateWindowMs } as Parameters<PgRateLimitStore['init']>[0]);
+    const hits = await Promise.all(Array.from({ length: 40 }, (_, i) => stores[i % 2].increment('192.0.2.1')));
+    expect(hits.map((h) => h.totalHits).sort((a, b) => a - b)).toEqual(Array.from({ length: 40 }, (_, i) => i + 1));
+    await stores[0].resetKey('192.0.2.1');
   });
 
   it('when a window has ended, then its row is pruned on a later attempt', async () => {

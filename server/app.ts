@@ -6,7 +6,7 @@ import type pg from 'pg';
 import type { Config } from './config.js';
 import { systemClock, type Clock } from './clock.js';
 import { createDatabase, createPool } from './db/client.js';
-import { createMailer, type Mailer } from './mail/mailer.js';
+import { createMailer, type MailTransport } from './mail/mailer.js';
 import { makeAudit } from './audit/audit.service.js';
 import type { Deps } from './deps.js';
 import { buildRouteTable, buildServices } from './features.js';
@@ -21,7 +21,8 @@ export interface AppOptions {
   config: Config;
   clock?: Clock;
   pool?: pg.Pool;
-  mailer?: Mailer;
+  /** Where mail goes (default: SMTP_URL or the outbox folder); tests put a transport they can make fail. */
+  mailTransport?: MailTransport;
   /** Start this process's job queue (pg-boss): server/index.ts does, tests that need it do. */
   startJobs?: JobsOptions | boolean;
 }
@@ -32,7 +33,7 @@ export function createApp(opts: AppOptions) {
   const clock = opts.clock ?? systemClock;
   const pool = opts.pool ?? createPool(config.databaseUrl);
   const db = createDatabase(pool);
-  const mailer = opts.mailer ?? createMailer(db, clock, config.mail);
+  const mailer = createMailer(db, clock, config.mail, opts.mailTransport);
   const deps: Deps = { db, pool, clock, config, mailer, audit: makeAudit(clock) };
   const services = buildServices(deps);
   const routeTable = buildRouteTable(deps, services);

@@ -8,6 +8,7 @@ import { peopleRoutes } from './people/people.routes.js';
 import { makeSitesService } from './sites/sites.service.js';
 import { sitesRoutes } from './sites/sites.routes.js';
 import { mailRoutes } from './mail/mail.routes.js';
+import { makeMailService } from './mail/mail.service.js';
 import { makeSignatures } from './signatures/signatures.service.js';
 import { makeProcedureServices, procedureRoutes } from './procedures/procedures.feature.js';
 import { makeUsability } from './benches/usability.service.js';
@@ -33,6 +34,7 @@ export function buildServices(deps: Deps) {
   const auth = makeAuthService(deps);
   const people = makePeopleService(deps, auth);
   const sites = makeSitesService(deps);
+  const mail = makeMailService(deps);
   const signatures = makeSignatures(deps, auth);
   const usability = makeUsability(deps);
   const equipment = { usability, benches: makeBenchesService(deps, signatures, usability), instruments: makeInstrumentsService(deps, usability) };
@@ -45,7 +47,7 @@ export function buildServices(deps: Deps) {
   const signoffs = makeSignoffsFeature(deps, signatures, usability);
   const practicals = makePracticalsFeature(deps, signatures, usability);
   const register = makeRegisterFeature(deps, { people, authorisations });
-  return { auth, people, sites, signatures, engine: makeEngineService(), ...equipment, evidence, procedures, authorisations, reminders, jobs, signoffs, practicals, register };
+  return { auth, people, sites, mail, signatures, engine: makeEngineService(), ...equipment, evidence, procedures, authorisations, reminders, jobs, signoffs, practicals, register };
 }
 export type Services = ReturnType<typeof buildServices>;
 
@@ -56,7 +58,7 @@ export function buildRouteTable(deps: Deps, s: Services): RouteDef[] {
     ...authRoutes(s.auth),
     ...peopleRoutes(s.people),
     ...sitesRoutes(s.sites),
-    ...mailRoutes(deps),
+    ...mailRoutes(s.mail),
     ...benchesRoutes(s.benches),
     ...instrumentsRoutes(s.instruments),
     ...evidenceRoutes(s.evidence, deps.config.uploadMaxBytes),

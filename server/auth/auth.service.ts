@@ -56,17 +56,20 @@ export function makeAuthService(deps: Deps) {
     const { token, hash } = newToken();
     const now = clock.now();
     const ttl = purpose === 'invite' ? config.tokens.inviteMs : config.tokens.resetMs;
-    await db.transaction(async (tx) => {
-      await retireOpenTokens(tx, userId, purpose, now);
-      await insertToken(tx, { userId, purpose, tokenHash: hash, expiresAt: new Date(now.getTime() + ttl), createdAt: now });
-      await audit(tx, { actorId, action: `account.${purpose}_link_issued`, entity: 'user', entityId: userId });
-    });
     const link = `${config.publicUrl}/set-password?token=${token}`;
     const hours = Math.round(ttl / 3_600_000);
     const text = purpose === 'invite'
       ? `Hello ${name},\n\nYou have been given an account on Breakover, the workshop's record of live-work training and authorisations.\n\nSet your password here (the link works once and expires in ${hours} hours):\n${link}\n`
       : `Hello ${name},\n\nSomeone asked to reset the Breakover password for ${email}. If it was you, set a new password here (the link works once and expires in ${Math.round(ttl / 60_000)} minutes):\n${link}\n\nIf it was not you, ignore this message; your password stays as it is.\n`;
-    await mailer.send({ to: email, subject: purpose === 'invite' ? 'Your Breakover account' : 'Reset your Breakover password', text, kind: purpose });
+    const mail = { to: email, subject: purpose === 'invite' ? 'Your Breakover account' : 'Reset your Breakover password', text, kind: purpose };
+    // The link's message is recorded with the token: both exist, or neither. The queue delivers it after commit.
+    await db.transaction(async (tx) => {
+      await retireOpenTokens(tx, userId, purpose, now);
+      await insertToken(tx, { userId, purpose, tokenHash: hash, expiresAt: new Date(now.getTime() + ttl), createdAt: now });
+      await audit(tx, { actorId, action: `account.${purpose}_link_issued`, entity: 'user', entityId: userId });
+      await mailer.enqueue(tx, mail, { key: `link:${hash}` });
+    });
+    await mailer.wake();
   }
 
   async function tokenInfo(token: string) {

@@ -45,6 +45,7 @@ export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Pro
       for (const _job of jobs) {
         out.push({ ...(await reminders.sweep()), pid: process.pid });
         for (const task of alongside) await task();
+        await deps.mailer.deliver();
       }
       await afterSweep(out[out.length - 1]);
       return out.length === 1 ? out[0] : out;
@@ -57,6 +58,8 @@ export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Pro
       }
       return out[0];
     });
+    await b.work(QUEUES.mail, work, async () => ({ ...(await deps.mailer.deliver()), pid: process.pid }));
+    deps.mailer.useQueue((after) => (after ? b.sendAfter(QUEUES.mail, {}, { singletonKey: 'later' }, after) : b.send(QUEUES.mail, {}, { singletonKey: 'now' })));
     boss = b;
     scheduled = opts.schedule !== false;
   }
@@ -70,6 +73,7 @@ export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Pro
       await starting?.catch(() => undefined);
       const b = boss;
       boss = null;
+      if (b) deps.mailer.useQueue(null);
       starting = null;
       if (b) await b.stop({ graceful: true, wait: true, timeout: 10_000 });
     },

@@ -4,6 +4,7 @@ import type PgBoss from 'pg-boss';
 export const QUEUES = {
   sweep: 'reminders-sweep',
   deliver: 'reminders-deliver',
+  mail: 'mail-deliver',
 } as const;
 
 export const QUEUE_OPTIONS: { name: string; options: PgBoss.Queue }[] = [
@@ -11,6 +12,8 @@ export const QUEUE_OPTIONS: { name: string; options: PgBoss.Queue }[] = [
   { name: QUEUES.sweep, options: { name: QUEUES.sweep, policy: 'standard', retryLimit: 10, retryDelay: 30, retryBackoff: true, expireInSeconds: 15 * 60 } },
   // Re-delivery of failed sends: one waiting at a time is enough.
   { name: QUEUES.deliver, options: { name: QUEUES.deliver, policy: 'short', retryLimit: 10, retryDelay: 30, retryBackoff: true, expireInSeconds: 15 * 60 } },
+  // Delivery of the mail outbox, asked for after a commit that wrote mail ('now') and for the next back-off ('later').
+  { name: QUEUES.mail, options: { name: QUEUES.mail, policy: 'short', retryLimit: 10, retryDelay: 30, retryBackoff: true, expireInSeconds: 15 * 60 } },
 ];
 
 /** Every ten minutes: often enough that a lapse notice follows the lapse closely. */

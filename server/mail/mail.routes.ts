@@ -1,29 +1,14 @@
-import { readFile } from 'node:fs/promises';
-import path from 'node:path';
 import { route, type RouteDef } from '../routing.js';
-import { pageQuery, uuidParam } from '../../shared/schemas/common.js';
-import type { Deps } from '../deps.js';
-import { notFound } from '../errors.js';
-import { findMailLog, listMailLog } from './mail.repository.js';
+import { uuidParam } from '../../shared/schemas/common.js';
+import { mailListQuery } from '../../shared/schemas/mail.js';
+import type { MailService } from './mail.service.js';
 
-/** The outbox page: lets a demo be followed without a mail client. */
-export function mailRoutes({ db, config }: Deps): RouteDef[] {
+/** The outbox page (admins): every message, its delivery state, and a retry for a failed one. */
+export function mailRoutes(mail: MailService): RouteDef[] {
   return [
-    route({
-      method: 'get', path: '/mail', access: ['read', 'MailLog'], query: pageQuery,
-      handler: async ({ query }) => {
-        const { items, total } = await listMailLog(db, query.page, query.pageSize);
-        return { items, total, page: query.page, pageSize: query.pageSize };
-      },
-    }),
-    route({
-      method: 'get', path: '/mail/:id', access: ['read', 'MailLog'], params: uuidParam,
-      handler: async ({ params }) => {
-        const row = await findMailLog(db, params.id);
-        if (!row) throw notFound('That message');
-        const raw = row.fileName ? await readFile(path.join(config.mail.outboxDir, path.basename(row.fileName)), 'utf8').catch(() => null) : null;
-        return { ...row, raw };
-      },
-    }),
+    route({ method: 'get', path: '/mail', access: ['read', 'MailLog'], query: mailListQuery, handler: async ({ query }) => mail.list(query) }),
+    route({ method: 'get', path: '/mail/:id', access: ['read', 'MailLog'], params: uuidParam, handler: async ({ params }) => mail.get(params.id) }),
+    // Only admins read the outbox, so only they may send a message again (shared/abilities.ts has no write action for it yet).
+    route({ method: 'post', path: '/mail/:id/retry', access: ['read', 'MailLog'], params: uuidParam, handler: async ({ actor, params }) => mail.retry(actor!.id, params.id) }),
   ];
 }

@@ -1,11 +1,12 @@
-import { mkdirSync } from 'node:fs';
-import { writeFile } from 'node:fs/promises';
-import path from 'node:path';
 import { randomUUID } from 'node:crypto';
-import nodemailer from 'nodemailer';
-import type { Executor } from '../db/client.js';
+import type { Database, Executor } from '../db/client.js';
 import type { Clock } from '../clock.js';
-import { insertMailLog, insertMailLogs, type MailLogInsert } from './mail.repository.js';
+import { createTransport, type MailConfig, type MailTransport } from './transport.js';
+import { makeDelivery, type DeliveryResult, type OutcomeHandler } from './delivery.js';
+import { insertMessages, nextWaitingAt, withdraw } from './outbox.repository.js';
+
+export type { MailConfig, MailTransport } from './transport.js';
+export type { Delivered, DeliveryResult, OutcomeHandler } from './delivery.js';
 
 export interface OutgoingMail {
   to: string;
@@ -14,71 +15,67 @@ export interface OutgoingMail {
   kind: string;
 }
 
-export interface MailConfig {
-  outboxDir: string;
-  from: string;
-  smtpUrl?: string;
-}
-
-export interface SendOptions {
-  /** Where the mail log row goes: a batch's own transaction, so a batch records its sends together. */
-  log?: Executor;
-}
-
-export type SendResult = { ok: true; id: string; fileName: string | null } | { ok: false; error: string };
+/** How this process asks the job queue for a delivery run: now, or after some seconds. */
+export type DeliveryRequest = (afterSeconds?: number) => Promise<unknown>;
 
 export interface Mailer {
-  /** Sends and records the message; throws when the transport fails (the failure is recorded too). */
-  send(mail: OutgoingMail, opts?: SendOptions): Promise<{ id: string; fileName: string | null }>;
-  /** Sends each message and records them all in one write; a failed one is reported in its place, not thrown. */
-  sendAll(mails: OutgoingMail[], opts?: SendOptions): Promise<SendResult[]>;
+  /**
+   * Records a message in the caller's transaction: it exists exactly when the change that causes it
+   * commits, once per key. Returns the new row's id, or null when the key was recorded before.
+   */
+  enqueue(tx: Executor, mail: OutgoingMail, opts: { key: string }): Promise<string | null>;
+  /** The same for many messages in one write; returns the new rows' ids by key. */
+  enqueueAll(tx: Executor, mails: (OutgoingMail & { key: string })[]): Promise<Map<string, string>>;
+  /** After a transaction that enqueued mail has committed: asks the queue for a delivery run (never throws). */
+  wake(): Promise<void>;
+  /** Delivers everything due now, in this process; then asks the queue to come back for what waits. */
+  deliver(): Promise<DeliveryResult>;
+  /** Withdraws messages not yet being sent, in the caller's transaction. */
+  withdraw(tx: Executor, ids: string[]): Promise<number>;
+  /** A sender's handler, told in the same transaction when its messages (keys starting with `prefix`) are sent or fail. */
+  onOutcome(prefix: string, handler: OutcomeHandler): void;
+  /** The job queue's delivery request, set by the process that runs the queue (null: none here). */
+  useQueue(request: DeliveryRequest | null): void;
 }
 
-/** Messages handed to the transport at once by sendAll. */
-const IN_FLIGHT = 8;
+/** The one path of every e-mail: a row in the outbox (mail_log), delivered afterwards by the queue. */
+export function createMailer(db: Database, clock: Clock, cfg: MailConfig, transport: MailTransport = createTransport(cfg)): Mailer {
+  const handlers = new Map<string, OutcomeHandler>();
+  const delivery = makeDelivery(db, clock, transport, handlers);
+  let request: DeliveryRequest | null = null;
 
-/**
- * Without SMTP_URL every message is written as an .eml file into the outbox folder: a local stand-in
- * for a mail server that a demo or a test can read.
- */
-export function createMailer(db: Executor, clock: Clock, cfg: MailConfig): Mailer {
-  const smtp = cfg.smtpUrl ? nodemailer.createTransport(cfg.smtpUrl) : null;
-  const file = nodemailer.createTransport({ streamTransport: true, buffer: true, newline: 'unix' });
-  if (!smtp) mkdirSync(cfg.outboxDir, { recursive: true });
-
-  /** Hands one message to the transport; returns its mail log row either way, and the error if it failed. */
-  async function transmit(mail: OutgoingMail): Promise<{ row: MailLogInsert; fileName: string | null; error?: Error }> {
+  const row = (m: OutgoingMail & { key: string }) => {
     const id = randomUUID();
-    const message = { from: cfg.from, to: mail.to, subject: mail.subject, text: mail.text, messageId: `<${id}@breakover.invalid>` };
-    const base = { id, toAddress: mail.to, subject: mail.subject, kind: mail.kind, createdAt: clock.now(), messageId: message.messageId };
-    try {
-      let fileName: string | null = null;
-      if (smtp) {
-        await smtp.sendMail(message);
-      } else {
-        const info = await file.sendMail(message);
-        const stamp = clock.now().toISOString().replace(/[:.]/g, '-');
-        fileName = `${stamp}-${id}.eml`;
-        await writeFile(path.join(cfg.outboxDir, fileName), info.message as Buffer);
-      }
-      return { row: { ...base, status: 'sent', fileName, sentAt: clock.now() }, fileName };
-    } catch (err) {
-      return { row: { ...base, status: 'failed', error: (err as Error).message.slice(0, 1000) }, fileName: null, error: err as Error };
-    }
+    const now = clock.now();
+    return {
+      id, dedupeKey: m.key, toAddress: m.to, subject: m.subject, body: m.text, kind: m.kind, status: 'waiting',
+      attempts: 0, nextAttemptAt: now, createdAt: now, messageId: `<${id}@breakover.invalid>`,
+    };
+  };
+
+  async function ask(afterSeconds?: number) {
+    if (!request) return;
+    await request(afterSeconds).catch((err: Error) => console.error(`[mail] could not ask the queue for delivery: ${err.message}`));
   }
 
   return {
-    async send(mail, opts = {}) {
-      const r = await transmit(mail);
-      await insertMailLog(opts.log ?? db, r.row);
-      if (r.error) throw r.error;
-      return { id: r.row.id!, fileName: r.fileName };
+    async enqueue(tx, mail, { key }) {
+      return (await insertMessages(tx, [row({ ...mail, key })])).get(key) ?? null;
     },
-    async sendAll(mails, opts = {}) {
-      const done: { row: MailLogInsert; fileName: string | null; error?: Error }[] = [];
-      for (let i = 0; i < mails.length; i += IN_FLIGHT) done.push(...(await Promise.all(mails.slice(i, i + IN_FLIGHT).map(transmit))));
-      await insertMailLogs(opts.log ?? db, done.map((d) => d.row));
-      return done.map((d): SendResult => (d.error ? { ok: false, error: d.error.message } : { ok: true, id: d.row.id!, fileName: d.fileName }));
+    enqueueAll: (tx, mails) => insertMessages(tx, mails.map(row)),
+    wake: () => ask(),
+    async deliver() {
+      const result = await delivery.deliver();
+      const next = await nextWaitingAt(db);
+      if (next) await ask(Math.max(1, Math.ceil((next.getTime() - clock.now().getTime()) / 1000)));
+      return result;
+    },
+    withdraw,
+    onOutcome(prefix, handler) {
+      handlers.set(prefix, handler);
+    },
+    useQueue(r) {
+      request = r;
     },
   };
 }

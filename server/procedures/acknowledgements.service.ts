@@ -4,6 +4,7 @@ import { ACKNOWLEDGEMENT_MEANING, type AckState, type AckTableQuery } from '../.
 import type { AckRowView } from '../../shared/procedures/reports.js';
 import { accessibleWhere } from '../authz/casl-sql.js';
 import { users } from '../db/schema/index.js';
+import type { Executor } from '../db/client.js';
 import type { Signatures } from '../signatures/signatures.service.js';
 import { presentSignature } from '../signatures/signatures.service.js';
 import { findUserById } from '../people/people.repository.js';
@@ -82,18 +83,19 @@ export function makeAcknowledgements(deps: Deps, signatures: Signatures) {
     return { userId, dueOn: updated.dueOn, extensionReason: updated.extensionReason };
   }
 
-  /** One message per person, after the publication has committed; a failed send is logged in the outbox record. */
-  async function notify(notices: RereadNotice[]) {
-    for (const n of notices) {
+  /**
+   * One message per person, recorded in the publication's own transaction (`tx`): it goes out exactly
+   * when the new version is in force, once per version and person, retried by the outbox until sent.
+   */
+  async function notify(tx: Executor, notices: RereadNotice[]) {
+    await mailer.enqueueAll(tx, notices.map((n) => {
       const link = `${config.publicUrl}/procedures/${n.procedureId}/versions/${n.versionId}`;
       const assess = n.changeClass === 're-assess'
         ? '\nThis change also needs a new assessment: practicals done against earlier versions no longer count toward authorisations that need one. Arrange a supervised practical with an assessor.\n'
         : '';
       const text = `Hello ${n.name},\n\nVersion ${n.number} of ${n.code} "${n.title}" is now in force. It changes what you acknowledged before, so please read it and acknowledge it again by ${n.dueOn}.\n${assess}\nOpen it here:\n${link}\n\nUntil you have read it, do not rely on the earlier version for live work.\n`;
-      await mailer
-        .send({ to: n.email, subject: `Re-read ${n.code} version ${n.number} by ${n.dueOn}`, text, kind: `procedure-${n.changeClass}` })
-        .catch((err: Error) => console.error(`[procedures] re-read notice to ${n.email} failed: ${err.message}`));
-    }
+      return { key: `reread:${n.versionId}:${n.userId}`, to: n.email, subject: `Re-read ${n.code} version ${n.number} by ${n.dueOn}`, text, kind: `procedure-${n.changeClass}` };
+    }));
   }
 
   return { acknowledge, table, extend, notify };

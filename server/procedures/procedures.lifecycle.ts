@@ -15,8 +15,8 @@ import { insertRequests } from './acknowledgements.repository.js';
 import { versionView } from './procedures.views.js';
 import type { RereadNotice } from './acknowledgements.service.js';
 
-export function makeLifecycle(deps: Deps, signatures: Signatures, notify: (notices: RereadNotice[]) => Promise<void>) {
-  const { db, clock, audit } = deps;
+export function makeLifecycle(deps: Deps, signatures: Signatures, notify: (tx: Executor, notices: RereadNotice[]) => Promise<void>) {
+  const { db, clock, audit, mailer } = deps;
 
   function requireStatus(v: repo.VersionRow, status: string, doing: string) {
     if (v.status !== status) throw conflict(`Version ${v.number} is ${v.status.replace('_', ' ')}; only a version ${status.replace('_', ' ')} can be ${doing}.`);
@@ -85,7 +85,6 @@ export function makeLifecycle(deps: Deps, signatures: Signatures, notify: (notic
     requireStatus(before, 'in_review', 'approved');
     // A wrong password stops here, before anything is written.
     const signer = await signatures.verify(actor.id, password);
-    let notices: RereadNotice[] = [];
     const view = await transition(actor, id, versionId, async (tx, v) => {
       requireStatus(v, 'in_review', 'approved');
       await checkReady(tx, v);
@@ -113,10 +112,10 @@ export function makeLifecycle(deps: Deps, signatures: Signatures, notify: (notic
         actorId: actor.id, action: 'procedure.published', entity: 'procedure_version', entityId: v.id,
         oldValues: { status: v.status }, newValues: { status: 'published', number: v.number, changeClass: v.changeClass, reviewDueOn: row.reviewDueOn, asked: people.map((p) => p.userId) },
       });
-      notices = people.map((p) => ({ ...p, code: procedure.code, title: v.title, number: v.number, changeClass: v.changeClass as 're-read' | 're-assess', procedureId: id, versionId: v.id }));
+      await notify(tx, people.map((p) => ({ ...p, code: procedure.code, title: v.title, number: v.number, changeClass: v.changeClass as 're-read' | 're-assess', procedureId: id, versionId: v.id })));
       return row;
     });
-    await notify(notices);
+    await mailer.wake();
     return view;
   }
 

@@ -1,4 +1,5 @@
-import { and, eq, isNull, lt, or, sql } from 'drizzle-orm';
+import { and, eq, isNull, sql } from 'drizzle-orm';
+import type { Delivered } from '../mail/mailer.js';
 import type { Executor } from '../db/client.js';
 import { procedureReviewReminders, procedures, procedureVersions, sites, userRoles, users, userSites } from '../db/schema/index.js';
 
@@ -25,8 +26,7 @@ export async function reviewsDueWithin(db: Executor, now: Date, days: number) {
     .orderBy(procedureVersions.reviewDueOn, procedures.code, users.name);
 }
 
-/** Records the reminders to be sent; one already recorded for the same (version, manager, offset) stays as it is. */
-/** Records the reminders not yet recorded; returns how many were new. */
+/** Records the reminders not yet recorded (one per version, manager and offset); returns how many were new. */
 export async function recordReminders(db: Executor, rows: (typeof procedureReviewReminders.$inferInsert)[]): Promise<number> {
   if (!rows.length) return 0;
   const added = await db.insert(procedureReviewReminders).values(rows).onConflictDoNothing().returning({ id: procedureReviewReminders.id });
@@ -34,23 +34,24 @@ export async function recordReminders(db: Executor, rows: (typeof procedureRevie
 }
 
 /**
- * Claims unsent reminders for this run. A claim older than `staleBefore` is taken over (its sender died),
- * so a reminder is neither lost nor sent twice by two instances at once.
+ * Takes the reminders not yet handed to the mail outbox, marking them as handed over (`claimed_at`); the
+ * caller records their messages in the same transaction, so each is handed over once.
  */
-export async function claimUnsent(db: Executor, now: Date, staleBefore: Date) {
+export async function claimUnqueued(db: Executor, now: Date) {
   return db
     .update(procedureReviewReminders)
-    .set({ claimedAt: now, attempts: sql`${procedureReviewReminders.attempts} + 1` })
-    .where(and(isNull(procedureReviewReminders.sentAt), or(isNull(procedureReviewReminders.claimedAt), lt(procedureReviewReminders.claimedAt, staleBefore))))
+    .set({ claimedAt: now })
+    .where(and(isNull(procedureReviewReminders.sentAt), isNull(procedureReviewReminders.claimedAt)))
     .returning();
 }
 
-export async function markSent(db: Executor, id: string, at: Date) {
-  await db.update(procedureReviewReminders).set({ sentAt: at, lastError: null }).where(eq(procedureReviewReminders.id, id));
-}
-
-export async function markFailed(db: Executor, id: string, error: string) {
-  await db.update(procedureReviewReminders).set({ claimedAt: null, lastError: error.slice(0, 1000) }).where(eq(procedureReviewReminders.id, id));
+/** Mirrors what became of each reminder's message (its outbox key is `review:<reminder id>`). */
+export async function recordDelivery(db: Executor, outcomes: Delivered[]) {
+  if (!outcomes.length) return;
+  const rows = outcomes.map((o) => ({ id: o.key.slice('review:'.length), sent_at: o.status === 'sent' ? o.at.toISOString() : null, attempts: o.attempts, error: o.error }));
+  await db.execute(sql`update procedure_review_reminders r set sent_at = x.sent_at, attempts = x.attempts, last_error = x.error
+    from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb) as x(id uuid, sent_at timestamptz, attempts int, error text)
+    where r.id = x.id and r.sent_at is null`);
 }
 
 export async function reminderContext(db: Executor, versionId: string, managerId: string) {

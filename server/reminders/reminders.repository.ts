@@ -1,4 +1,5 @@
-import { and, asc, count, desc, eq, inArray, lte, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNull, lte, sql, type SQL } from 'drizzle-orm';
+import type { Delivered } from '../mail/mailer.js';
 import type { Executor } from '../db/client.js';
 import { reminderSends, users } from '../db/schema/index.js';
 
@@ -8,36 +9,50 @@ export type SendRow = typeof reminderSends.$inferSelect;
  * Pending reminders about an end that has moved since they were planned (the due moment no longer
  * matches the period's end less the offset) are cancelled; planning records the new end's own.
  */
-export async function cancelMoved(db: Executor): Promise<number> {
-  const r = await db.execute(sql`update reminder_sends s set status = 'cancelled'
+export async function cancelMoved(db: Executor): Promise<string[]> {
+  const r = await db.execute<{ mail_id: string | null }>(sql`update reminder_sends s set status = 'cancelled'
     from authorisation_periods p
     where s.period_id = p.id and s.status = 'pending' and s.offset_days > 0
-      and s.due_at <> p.ends_at - make_interval(days => s.offset_days)`);
-  return (r as unknown as { rowCount: number | null }).rowCount ?? 0;
+      and s.due_at <> p.ends_at - make_interval(days => s.offset_days)
+    returning s.mail_id`);
+  // Their messages already in the outbox are withdrawn by the caller.
+  return r.rows.flatMap((row) => (row.mail_id ? [row.mail_id] : []));
 }
 
 /**
- * Takes due sends no other worker holds: a send is in one worker's hands at a time, until its transaction
- * ends. Sends about one record come together, so a batch reads that record once.
+ * Takes due sends not yet handed to the mail outbox that no other worker holds: a send is in one worker's
+ * hands at a time, until its transaction ends. Sends about one record come together, so a batch reads
+ * that record once.
  */
 export async function claimDue(tx: Executor, now: Date, limit: number): Promise<SendRow[]> {
   return tx.select().from(reminderSends)
-    .where(and(eq(reminderSends.status, 'pending'), lte(reminderSends.nextAttemptAt, now)))
+    .where(and(eq(reminderSends.status, 'pending'), isNull(reminderSends.mailId), lte(reminderSends.nextAttemptAt, now)))
     .orderBy(asc(reminderSends.nextAttemptAt), sql`coalesce(${reminderSends.periodId}, ${reminderSends.certificateId})`, asc(reminderSends.id))
     .limit(limit)
     .for('update', { skipLocked: true });
 }
 
-/** Marks sends as sent, each with the mail that carried it, in one statement. */
-export async function markSent(tx: Executor, sent: { id: string; mail_id: string }[], now: Date) {
-  if (!sent.length) return;
-  await tx.execute(sql`update reminder_sends s set status = 'sent', sent_at = ${now.toISOString()}::timestamptz, mail_id = x.mail_id, last_error = null
-    from jsonb_to_recordset(${JSON.stringify(sent)}::jsonb) as x(id uuid, mail_id uuid)
+/** Links sends to the outbox messages that carry them, in one statement; they stay pending until sent. */
+export async function markQueued(tx: Executor, queued: { id: string; mail_id: string }[]) {
+  if (!queued.length) return;
+  await tx.execute(sql`update reminder_sends s set mail_id = x.mail_id
+    from jsonb_to_recordset(${JSON.stringify(queued)}::jsonb) as x(id uuid, mail_id uuid)
     where s.id = x.id`);
 }
 
-export async function markFailed(tx: Executor, id: string, attempts: number, nextAttemptAt: Date, error: string) {
-  await tx.update(reminderSends).set({ attempts, nextAttemptAt, lastError: error.slice(0, 1000) }).where(eq(reminderSends.id, id));
+/**
+ * Mirrors what became of each send's message (outbox key `reminder:<send id>`): sent only once the mail
+ * server has taken it; otherwise its attempts, error and next attempt. A cancelled send stays cancelled.
+ */
+export async function recordDelivery(tx: Executor, outcomes: Delivered[]) {
+  if (!outcomes.length) return;
+  const rows = outcomes.map((o) => ({
+    id: o.key.slice('reminder:'.length), sent_at: o.status === 'sent' ? o.at.toISOString() : null, attempts: o.attempts, error: o.error, next_at: o.nextAttemptAt.toISOString(),
+  }));
+  await tx.execute(sql`update reminder_sends s set status = case when x.sent_at is null then s.status else 'sent' end, sent_at = x.sent_at,
+      attempts = x.attempts, last_error = x.error, next_attempt_at = x.next_at
+    from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb) as x(id uuid, sent_at timestamptz, attempts int, error text, next_at timestamptz)
+    where s.id = x.id and s.status = 'pending'`);
 }
 
 export async function cancelSends(tx: Executor, ids: string[]) {

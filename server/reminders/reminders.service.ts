@@ -7,12 +7,9 @@ import * as candidates from './candidates.repository.js';
 import * as planning from './planning.repository.js';
 import { mailComposer } from './context.js';
 
-const MINUTE = 60_000;
-/** Sends per delivery transaction, and delivery transactions at once in one process. */
+/** Sends handed to the outbox per transaction, and such transactions at once in one process. */
 const BATCH = 100;
 const WORKERS = 3;
-/** 1, 2, 4 … minutes between attempts, at most 6 hours: a failing transport is retried until it works. */
-export const backoffMs = (attempts: number) => Math.min(6 * 60 * MINUTE, MINUTE * 2 ** Math.max(0, attempts - 1));
 
 export interface SweepResult {
   reevaluated: number;
@@ -30,6 +27,7 @@ export interface SweepResult {
  */
 export function makeReminders(deps: Deps) {
   const { db, clock, mailer, config, audit } = deps;
+  mailer.onOutcome('reminder:', repo.recordDelivery);
 
   async function recordDue(): Promise<number> {
     const now = clock.now();
@@ -54,7 +52,7 @@ export function makeReminders(deps: Deps) {
       return true;
     } catch (err) {
       const e = err as Error & { cause?: Error };
-      console.error(`[sweep] could not re-decide person ${personId}: ${(e.cause ?? e).message.split('\n')[0]}`);
+      deps.log.error({ personId, err: e.cause ?? e }, `sweep: could not re-decide person ${personId}`);
       return false;
     }
   }
@@ -81,7 +79,7 @@ export function makeReminders(deps: Deps) {
 
   async function plan(): Promise<number> {
     return db.transaction(async (tx) => {
-      await repo.cancelMoved(tx);
+      await mailer.withdraw(tx, await repo.cancelMoved(tx));
       const n = await planning.planSends(tx, clock.now());
       if (n) await audit(tx, { actorId: null, action: 'reminders.planned', entity: 'reminder_sends', entityId: clock.now().toISOString(), newValues: { count: n } });
       return n;
@@ -89,17 +87,19 @@ export function makeReminders(deps: Deps) {
   }
 
   /**
-   * Delivers every due send, a batch per transaction: each batch claims its rows (other workers skip them),
-   * composes from what stands now, and marks a send sent only once the transport has taken its message.
+   * Hands every due send to the mail outbox, a batch per transaction: each batch claims its rows (other
+   * workers skip them), composes from what stands now and records the messages with them; then the outbox
+   * delivers. A send is marked sent only once the mail server has taken its message (recordDelivery).
    */
   async function deliver() {
-    const out = { sent: 0, failed: 0, cancelled: 0 };
+    const out = { cancelled: 0 };
     // A few batches at once, as several processes would: SKIP LOCKED keeps them on different sends.
-    await Promise.all(Array.from({ length: WORKERS }, () => deliverBatches(out)));
-    return out;
+    await Promise.all(Array.from({ length: WORKERS }, () => handOverBatches(out)));
+    const delivered = await mailer.deliver();
+    return { sent: delivered.sent, failed: delivered.retrying + delivered.failed, cancelled: out.cancelled };
   }
 
-  async function deliverBatches(out: { sent: number; failed: number; cancelled: number }) {
+  async function handOverBatches(out: { cancelled: number }) {
     for (;;) {
       const claimed = await db.transaction(async (tx) => {
         const now = clock.now();
@@ -107,32 +107,21 @@ export function makeReminders(deps: Deps) {
         const people = await repo.recipientsOf(tx, batch.map((s) => s.recipientId));
         const composer = mailComposer(tx, config, now);
         await composer.prefetch(batch);
-        const sent: { id: string; mail_id: string }[] = [];
         const cancelled: string[] = [];
-        const outgoing: { send: (typeof batch)[number]; mail: OutgoingMail }[] = [];
+        const outgoing: (OutgoingMail & { key: string; sendId: string })[] = [];
         for (const s of batch) {
           const to = people.get(s.recipientId);
           const mail = to?.active ? await composer.compose(s, to.name) : null;
-          if (to && mail) outgoing.push({ send: s, mail: { to: to.email, ...mail } });
+          if (to && mail) outgoing.push({ key: `reminder:${s.id}`, sendId: s.id, to: to.email, ...mail });
           else cancelled.push(s.id);
         }
-        const results = await mailer.sendAll(outgoing.map((o) => o.mail), { log: tx });
-        for (const [i, r] of results.entries()) {
-          const s = outgoing[i].send;
-          if (r.ok) sent.push({ id: s.id, mail_id: r.id });
-          else {
-            // Still pending: it is marked sent only after the transport has taken it.
-            await repo.markFailed(tx, s.id, s.attempts + 1, new Date(now.getTime() + backoffMs(s.attempts + 1)), r.error);
-            out.failed++;
-          }
-        }
-        await repo.markSent(tx, sent, clock.now());
+        const ids = await mailer.enqueueAll(tx, outgoing);
+        await repo.markQueued(tx, outgoing.flatMap((o) => (ids.has(o.key) ? [{ id: o.sendId, mail_id: ids.get(o.key)! }] : [])));
         await repo.cancelSends(tx, cancelled);
-        out.sent += sent.length;
         out.cancelled += cancelled.length;
         return batch.length;
       });
-      // A short batch means nothing more is due now (failed sends wait for their next attempt).
+      // A short batch means nothing more is due now.
       if (claimed < BATCH) break;
     }
   }

@@ -70,7 +70,7 @@ describe('exactly-once reminders with two server processes', () => {
     const offsets = (await t.ownerQuery(`select r.offset_days, count(*)::int as n from reminder_sends r join authorisation_periods p on p.id = r.period_id where p.scope_id = $1 group by 1 order by 1`, [scope.id])).rows;
     expect(offsets).toEqual([{ offset_days: 30, n: people.length * 2 }, { offset_days: 60, n: people.length * 2 }]);
     expect((await Promise.all(t.mails().map(parseEml))).filter((m) => m.subject.includes(scope.title)).length).toBe(people.length * 4);
-  });
+  }, 120_000); // starts a second server process twice: a loaded machine needs more than the default
 });
 
 describe('an end that moves', () => {

@@ -9,6 +9,7 @@ import { SettableClock } from '../../server/clock.js';
 import pg from 'pg';
 import { seedDemoIfEmpty } from '../../server/seed/index.js';
 import { createTestDatabase } from './db.js';
+import { deliverOnCommit } from './deliver.js';
 
 export const PUBLIC_URL = 'http://breakover.test';
 
@@ -16,6 +17,8 @@ export interface TestAppOptions {
   seed?: boolean;
   start?: string;
   env?: Record<string, string>;
+  /** false: mail waits in the outbox until the test delivers it (deliverMail), as if the process died. */
+  deliverOnCommit?: boolean;
 }
 
 /**
@@ -36,6 +39,8 @@ export async function makeTestApp(opts: TestAppOptions = {}) {
     ...opts.env,
   });
   const built = createApp({ config, clock });
+  // No job queue here: the app delivers in-process as soon as a change that wrote mail has committed.
+  if (opts.deliverOnCommit !== false) deliverOnCommit(built.deps.mailer);
   if (opts.seed !== false) await seedDemoIfEmpty(built.deps.db, clock);
   afterAll(async () => {
     await built.close();
@@ -59,8 +64,12 @@ export async function makeTestApp(opts: TestAppOptions = {}) {
         await c.end();
       }
     },
-    mails: () => readdirSync(outbox).filter((f) => f.endsWith('.eml')).sort().map((f) => readFileSync(path.join(outbox, f), 'utf8')),
+    /** Every message delivered to the outbox folder so far, oldest first. */
+    mails: () => readOutbox(outbox),
   };
 }
 
 export type TestApp = Awaited<ReturnType<typeof makeTestApp>>;
+
+/** The .eml files in an outbox folder, oldest message first (files are named by when the message was recorded). */
+export const readOutbox = (dir: string) => readdirSync(dir).filter((f) => f.endsWith('.eml')).sort().map((f) => readFileSync(path.join(dir, f), 'utf8'));

@@ -1,5 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
+import { mkdtempSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
@@ -7,11 +7,10 @@ import { afterAll } from 'vitest';
 import { loadConfig } from '../../server/config.js';
 import { createApp } from '../../server/app.js';
 import { SettableClock } from '../../server/clock.js';
-import { createDatabase, createPool } from '../../server/db/client.js';
-import { createMailer, type Mailer } from '../../server/mail/mailer.js';
+import { createTransport, type MailTransport } from '../../server/mail/transport.js';
 import { seedDemoIfEmpty } from '../../server/seed/index.js';
 import { createTestDatabase } from './db.js';
-import { PUBLIC_URL } from './app.js';
+import { PUBLIC_URL, readOutbox } from './app.js';
 
 const env = (url: string, outbox: string) => ({
   DATABASE_URL: url, PUBLIC_URL, SESSION_SECRET: 'test-secret-'.padEnd(40, 'x'), MAIL_OUTBOX_DIR: outbox, SIGNIN_RATE_LIMIT: '1000',
@@ -19,21 +18,16 @@ const env = (url: string, outbox: string) => ({
 });
 
 /** A transport that fails while `failing` is set, in front of the real outbox writer. */
-export function switchableMailer(real: Mailer) {
+export function switchableTransport(real: MailTransport) {
   const state = { failing: false, attempts: 0 };
-  const mailer: Mailer = {
-    async send(mail, opts) {
+  const transport: MailTransport = {
+    async send(message) {
       state.attempts++;
       if (state.failing) throw new Error('421 4.3.2 mail service not available, try again later');
-      return real.send(mail, opts);
-    },
-    async sendAll(mails, opts) {
-      state.attempts += mails.length;
-      if (state.failing) return mails.map(() => ({ ok: false as const, error: '421 4.3.2 mail service not available, try again later' }));
-      return real.sendAll(mails, opts);
+      return real.send(message);
     },
   };
-  return Object.assign(state, { mailer });
+  return Object.assign(state, { transport });
 }
 
 /**
@@ -45,16 +39,14 @@ export async function makeJobsTestApp(opts: { start?: string } = {}) {
   const outbox = mkdtempSync(path.join(os.tmpdir(), 'breakover-outbox-'));
   const clock = new SettableClock(opts.start ?? '2026-03-02T09:00:00Z');
   const config = loadConfig(env(database.url, outbox));
-  const mailPool = createPool(database.url, 2);
-  const transport = switchableMailer(createMailer(createDatabase(mailPool), clock, config.mail));
-  const built = createApp({ config, clock, mailer: transport.mailer, startJobs: { pollSeconds: 0.5, schedule: false } });
+  const transport = switchableTransport(createTransport(config.mail));
+  const built = createApp({ config, clock, mailTransport: transport.transport, startJobs: { pollSeconds: 0.5, schedule: false } });
   await built.jobsReady;
   await seedDemoIfEmpty(built.deps.db, clock);
   const children: ChildProcess[] = [];
   afterAll(async () => {
     await stopSecondWorkers();
     await built.close();
-    await mailPool.end();
     await database.drop();
   });
 
@@ -104,7 +96,7 @@ export async function makeJobsTestApp(opts: { start?: string } = {}) {
         await c.end();
       }
     },
-    mails: () => readdirSync(outbox).filter((f) => f.endsWith('.eml')).sort().map((f) => readFileSync(path.join(outbox, f), 'utf8')),
+    mails: () => readOutbox(outbox),
   };
 }
 export type JobsTestApp = Awaited<ReturnType<typeof makeJobsTestApp>>;

@@ -66,12 +66,20 @@ export const accountTokens = pgTable('account_tokens', {
   check('account_tokens_purpose_ck', sql`${t.purpose} in ('invite', 'reset')`),
 ]);
 
+// The outbox: every e-mail is a row written in the transaction that causes it, then delivered by the queue.
+// `dedupe_key` makes a message once per cause; `message_id` stays the same across attempts.
 export const mailLog = pgTable('mail_log', {
   id: uuid('id').primaryKey().defaultRandom(),
+  dedupeKey: text('dedupe_key').notNull(),
   toAddress: text('to_address').notNull(),
   subject: text('subject').notNull(),
+  // Null only for messages recorded before the outbox kept their text.
+  body: text('body'),
   kind: text('kind').notNull(),
   status: text('status').notNull(),
+  attempts: integer('attempts').notNull().default(0),
+  nextAttemptAt: ts('next_attempt_at').notNull(),
+  claimedAt: ts('claimed_at'),
   fileName: text('file_name'),
   messageId: text('message_id'),
   error: text('error'),
@@ -79,7 +87,9 @@ export const mailLog = pgTable('mail_log', {
   sentAt: ts('sent_at'),
 }, (t) => [
   index('mail_log_created_idx').on(t.createdAt),
-  check('mail_log_status_ck', sql`${t.status} in ('sent', 'failed')`),
+  uniqueIndex('mail_log_dedupe_uq').on(t.dedupeKey),
+  index('mail_log_due_idx').on(t.nextAttemptAt).where(sql`${t.status} in ('waiting', 'sending')`),
+  check('mail_log_status_ck', sql`${t.status} in ('waiting', 'sending', 'sent', 'failed', 'cancelled')`),
 ]);
 
 // Append-only, hash-chained. The application role may only INSERT and SELECT here (see the roles migration).

@@ -23,4 +23,5 @@ export const rows: MatrixRows = {
   'PATCH /sites/:id': ['admin'],
   'GET /mail': ['admin'],
   'GET /mail/:id': ['admin'],
+  'POST /mail/:id/retry': ['admin'],
 };

@@ -7,7 +7,7 @@ import { createDatabase, createPool } from '../server/db/client.js';
 import { assertAppLogin } from '../server/db/login-check.js';
 import { systemClock } from '../server/clock.js';
 import { seedDemoIfEmpty } from '../server/seed/index.js';
-import { localDatabase, persistentSecret } from './lib/local-db.js';
+import { localDatabase, persistentAuditKey, persistentSecret } from './lib/local-db.js';
 import { portOrFree } from './lib/ports.js';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -33,6 +33,8 @@ async function main() {
     PUBLIC_URL: viteUrl,
     EXTRA_ORIGINS: `http://127.0.0.1:${vitePort},http://localhost:${apiPort}`,
     SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(dataRoot),
+    AUDIT_KEY: process.env.AUDIT_KEY ?? persistentAuditKey(dataRoot),
+    AUDIT_ANCHOR_DIR: process.env.AUDIT_ANCHOR_DIR ?? dataRoot,
     MAIL_OUTBOX_DIR: process.env.MAIL_OUTBOX_DIR ?? path.join(root, 'mail-outbox'),
     BREAKOVER_API_URL: `http://127.0.0.1:${apiPort}`,
   };

@@ -8,7 +8,7 @@ import { assertAppLogin } from '../server/db/login-check.js';
 import { systemClock } from '../server/clock.js';
 import { seedDemoIfEmpty } from '../server/seed/index.js';
 import { DEMO_PASSWORD, DEMO_SIGN_INS } from '../server/seed/demo-people.js';
-import { localDatabase, persistentSecret } from './lib/local-db.js';
+import { localDatabase, persistentAuditKey, persistentSecret } from './lib/local-db.js';
 import { buildClientIfStale } from './lib/build.js';
 import { portOrFree } from './lib/ports.js';
 
@@ -37,6 +37,8 @@ async function main() {
     PUBLIC_URL: publicUrl,
     EXTRA_ORIGINS: [process.env.EXTRA_ORIGINS, `http://127.0.0.1:${port}`].filter(Boolean).join(','),
     SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(dataRoot),
+    AUDIT_KEY: process.env.AUDIT_KEY ?? persistentAuditKey(dataRoot),
+    AUDIT_ANCHOR_DIR: process.env.AUDIT_ANCHOR_DIR ?? dataRoot,
     MAIL_OUTBOX_DIR: process.env.MAIL_OUTBOX_DIR ?? path.join(root, 'mail-outbox'),
     STATIC_DIR: path.join(root, 'dist'),
   };

@@ -3,6 +3,7 @@
 import { spawnSync, spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, chmodSync } from 'node:fs';
 import os from 'node:os';
+import { randomBytes } from 'node:crypto';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ensureDatabase, findPostgresBin, initCluster, removeCluster, startCluster, stopCluster } from './lib/cluster.js';
@@ -52,6 +53,9 @@ async function main() {
       TEST_CHROMIUM: CHROMIUM,
       TEST_STATIC_DIR: staticDir,
       BCRYPT_COST: '4',
+      // For tests that build their configuration from the environment; makeTestApp sets its own.
+      AUDIT_KEY: randomBytes(32).toString('hex'),
+      AUDIT_ANCHOR_DIR: path.join(parent, 'anchors'),
     });
   } finally {
     stopCluster(bin, dataDir);

@@ -10,6 +10,9 @@ const envSchema = z.object({
   PUBLIC_URL: z.string().url().optional(),
   EXTRA_ORIGINS: z.string().default(''),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters'),
+  // The audit chain's HMAC key, kept outside the database: hex, at least 32 bytes.
+  AUDIT_KEY: z.string().regex(/^([0-9a-fA-F]{2}){32,}$/, 'AUDIT_KEY must be hex, at least 32 bytes (64 hex digits)'),
+  AUDIT_ANCHOR_DIR: z.string().default('.data'),
   MAIL_OUTBOX_DIR: z.string().default('mail-outbox'),
   MAIL_FROM: z.string().default('Breakover <no-reply@breakover.invalid>'),
   SMTP_URL: z.string().url().optional(),
@@ -43,6 +46,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     publicUrl,
     allowedOrigins: origins,
     sessionSecret: e.SESSION_SECRET,
+    audit: { key: e.AUDIT_KEY, anchorDir: path.resolve(e.AUDIT_ANCHOR_DIR) },
     mail: { outboxDir: path.resolve(e.MAIL_OUTBOX_DIR), from: e.MAIL_FROM, smtpUrl: e.SMTP_URL },
     uploadMaxBytes: e.UPLOAD_MAX_BYTES,
     cookieSecure: e.COOKIE_SECURE ?? publicUrl.startsWith('https:'),

@@ -27,6 +27,7 @@ import { authorisationRoutes } from './authorisations/authorisations.routes.js';
 import { makeReminders } from './reminders/reminders.service.js';
 import { reminderRoutes } from './reminders/reminders.routes.js';
 import { makeJobs } from './jobs/index.js';
+import { makeSealer } from './audit/sealer.js';
 import { makeRegisterFeature, registerFeatureRoutes } from './register/index.js';
 
 /** Every feature's services, built once per app. */
@@ -43,7 +44,9 @@ export function buildServices(deps: Deps) {
   const authorisations = makeAuthorisationsFeature(deps, signatures);
   const reminders = makeReminders(deps);
   // Procedure review-due reminders ride on the same scheduled sweep (30, 7 and 0 days before).
-  const jobs = makeJobs(deps, reminders, [() => procedures.reminders.run(null, [30, 7, 0])]);
+  // The audit trail is sealed after appends, and sealed and anchored outside the database with every sweep.
+  const sealer = makeSealer(deps);
+  const jobs = makeJobs(deps, reminders, [() => procedures.reminders.run(null, [30, 7, 0]), () => sealer.run({ anchor: true })], sealer);
   const signoffs = makeSignoffsFeature(deps, signatures, usability);
   const practicals = makePracticalsFeature(deps, signatures, usability);
   const register = makeRegisterFeature(deps, { people, authorisations });

@@ -59,3 +59,11 @@ export function persistentSecret(dataRoot: string): string {
   if (!existsSync(file)) writeFileSync(file, randomBytes(32).toString('hex'), { mode: 0o600 });
   return readFileSync(file, 'utf8').trim();
 }
+
+/** The audit chain's key (AUDIT_KEY), made once in the data folder: outside the database, like the anchors. */
+export function persistentAuditKey(dataRoot: string): string {
+  const file = path.join(dataRoot, 'audit-key');
+  mkdirSync(dataRoot, { recursive: true });
+  if (!existsSync(file)) writeFileSync(file, randomBytes(32).toString('hex'), { mode: 0o600, flag: 'wx' });
+  return readFileSync(file, 'utf8').trim();
+}

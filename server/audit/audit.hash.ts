@@ -1,7 +1,8 @@
-import { createHash } from 'node:crypto';
+import { createHmac, timingSafeEqual } from 'node:crypto';
 import { canonicalJson } from '../../shared/canonical.js';
 
-export const GENESIS_HASH = '0'.repeat(64);
+/** What the first seal links to: no entry (0) and no previous hmac. */
+export const GENESIS = { id: 0, hmac: '0'.repeat(64) } as const;
 
 export interface AuditFields {
   at: Date;
@@ -13,10 +14,22 @@ export interface AuditFields {
   newValues: unknown;
 }
 
-/** The hash covers the entry's own fields and the hash of the entry before it. */
-export function auditHash(prevHash: string, e: AuditFields): string {
+export type SealedFields = AuditFields & { id: number };
+
+/** The audit key from its hex form (AUDIT_KEY or the key file). */
+export const auditKey = (hex: string): Buffer => Buffer.from(hex, 'hex');
+
+/**
+ * HMAC-SHA-256 with the audit key over the entry's own fields, its id, the id of the entry sealed before
+ * it and that entry's hmac: without the key no one can rebuild the chain, and the ids make a removed
+ * entry show as a gap even where the sequence already had one (a rolled-back transaction).
+ */
+export function sealHmac(key: Buffer, prev: { id: number; hmac: string }, e: SealedFields): string {
   const text = canonicalJson({
-    prevHash,
+    v: 1,
+    id: e.id,
+    prevId: prev.id,
+    prevHmac: prev.hmac,
     at: e.at.toISOString(),
     actorId: e.actorId,
     action: e.action,
@@ -25,5 +38,14 @@ export function auditHash(prevHash: string, e: AuditFields): string {
     oldValues: e.oldValues ?? null,
     newValues: e.newValues ?? null,
   });
-  return createHash('sha256').update(text).digest('hex');
+  return createHmac('sha256', key).update(text).digest('hex');
+}
+
+/** The HMAC of one anchor line's fields, so a line cannot be written or changed without the key. */
+export function anchorMac(key: Buffer, at: string, id: number, hmac: string): string {
+  return createHmac('sha256', key).update(`audit-anchor\t${at}\t${id}\t${hmac}`).digest('hex');
+}
+
+export function sameHex(a: string, b: string): boolean {
+  return a.length === b.length && timingSafeEqual(Buffer.from(a), Buffer.from(b));
 }

@@ -11,11 +11,14 @@ export interface AuditInput {
   newValues?: unknown;
 }
 
-export type Audit = (tx: Executor, entry: AuditInput) => Promise<void>;
+export type Audit = ((tx: Executor, entry: AuditInput) => Promise<void>) & {
+  /** Set where the job queue runs: told after each append, so a seal run follows the commit soon. */
+  onAppended?: (() => void) | null;
+};
 
 export function makeAudit(clock: Clock): Audit {
-  return (tx, entry) =>
-    appendAudit(tx, {
+  const audit: Audit = async (tx, entry) => {
+    await appendAudit(tx, {
       at: clock.now(),
       actorId: entry.actorId,
       action: entry.action,
@@ -24,4 +27,8 @@ export function makeAudit(clock: Clock): Audit {
       oldValues: entry.oldValues ?? null,
       newValues: entry.newValues ?? null,
     });
+    audit.onAppended?.();
+  };
+  audit.onAppended = null;
+  return audit;
 }

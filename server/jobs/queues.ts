@@ -5,6 +5,7 @@ export const QUEUES = {
   sweep: 'reminders-sweep',
   deliver: 'reminders-deliver',
   mail: 'mail-deliver',
+  seal: 'audit-seal',
 } as const;
 
 export const QUEUE_OPTIONS: { name: string; options: PgBoss.Queue }[] = [
@@ -14,6 +15,8 @@ export const QUEUE_OPTIONS: { name: string; options: PgBoss.Queue }[] = [
   { name: QUEUES.deliver, options: { name: QUEUES.deliver, policy: 'short', retryLimit: 10, retryDelay: 30, retryBackoff: true, expireInSeconds: 15 * 60 } },
   // Delivery of the mail outbox, asked for after a commit that wrote mail ('now') and for the next back-off ('later').
   { name: QUEUES.mail, options: { name: QUEUES.mail, policy: 'short', retryLimit: 10, retryDelay: 30, retryBackoff: true, expireInSeconds: 15 * 60 } },
+  // Sealing the audit trail after appends: one run waiting and one running is enough (the sealer takes turns by lock).
+  { name: QUEUES.seal, options: { name: QUEUES.seal, policy: 'stately', retryLimit: 10, retryDelay: 10, retryBackoff: true, expireInSeconds: 15 * 60 } },
 ];
 
 /** Every ten minutes: often enough that a lapse notice follows the lapse closely. */

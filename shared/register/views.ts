@@ -77,9 +77,36 @@ export interface AuditEntryView {
   newValues: unknown;
 }
 
-export type ChainReportView =
-  | { intact: true; entries: number; checkedAt: string }
-  | { intact: false; entries: number; firstBadId: number; reason: 'hash' | 'link'; checkedAt: string; entry: AuditEntryView | null };
+/** What can be wrong with the sealed chain; entries not sealed yet are counted apart and are no fault. */
+export type ChainIssueKind = 'truncated_tail' | 'gap' | 'fork' | 'edited' | 'unsealed_inside' | 'anchor_mismatch' | 'anchor_forged';
+
+export interface ChainIssueView {
+  kind: ChainIssueKind;
+  /** 1-based position in the sealed chain, where the issue is there; null for an anchor's own finding. */
+  position: number | null;
+  entryId: number | null;
+  /** The anchor file line, for issues found against an anchor. */
+  anchorLine: number | null;
+  detail: string;
+  /** The entry named, when it is still in the trail. */
+  entry: AuditEntryView | null;
+}
+
+export interface ChainReportView {
+  intact: boolean;
+  checkedAt: string;
+  /** Every entry in the trail: sealed, and written but not yet sealed. */
+  entries: number;
+  sealed: number;
+  unsealed: number;
+  head: { id: number; position: number; hmac: string } | null;
+  /** The newest line of the anchor file (kept outside the database), if any. */
+  lastAnchor: { at: string; id: number; hmac: string; line: number } | null;
+  anchors: number;
+  /** Up to 50 issues, in the order found; `issueCount` counts them all. */
+  issues: ChainIssueView[];
+  issueCount: number;
+}
 
 export interface FindingView {
   id: string;

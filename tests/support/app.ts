@@ -12,6 +12,8 @@ import { createTestDatabase } from './db.js';
 import { deliverOnCommit } from './deliver.js';
 
 export const PUBLIC_URL = 'http://breakover.test';
+/** The audit key of every test app (64 hex digits); tamper tests rebuild the chain with another. */
+export const TEST_AUDIT_KEY = 'a1'.repeat(32);
 
 export interface TestAppOptions {
   seed?: boolean;
@@ -33,6 +35,8 @@ export async function makeTestApp(opts: TestAppOptions = {}) {
     DATABASE_URL: database.url,
     PUBLIC_URL,
     SESSION_SECRET: 'test-secret-'.padEnd(40, 'x'),
+    AUDIT_KEY: TEST_AUDIT_KEY,
+    AUDIT_ANCHOR_DIR: mkdtempSync(path.join(os.tmpdir(), 'breakover-anchors-')),
     MAIL_OUTBOX_DIR: outbox,
     SIGNIN_RATE_LIMIT: '1000',
     STATIC_DIR: path.join(os.tmpdir(), 'breakover-no-static'),

@@ -10,10 +10,11 @@ import { SettableClock } from '../../server/clock.js';
 import { createTransport, type MailTransport } from '../../server/mail/transport.js';
 import { seedDemoIfEmpty } from '../../server/seed/index.js';
 import { createTestDatabase } from './db.js';
-import { PUBLIC_URL, readOutbox } from './app.js';
+import { PUBLIC_URL, TEST_AUDIT_KEY, readOutbox } from './app.js';
 
 const env = (url: string, outbox: string) => ({
   DATABASE_URL: url, PUBLIC_URL, SESSION_SECRET: 'test-secret-'.padEnd(40, 'x'), MAIL_OUTBOX_DIR: outbox, SIGNIN_RATE_LIMIT: '1000',
+  AUDIT_KEY: TEST_AUDIT_KEY, AUDIT_ANCHOR_DIR: path.join(outbox, 'anchors'),
   STATIC_DIR: path.join(os.tmpdir(), 'breakover-no-static'),
 });
 

@@ -1,7 +1,10 @@
 import { sql } from 'drizzle-orm';
 import {
-  pgTable, uuid, text, boolean, integer, timestamp, date, primaryKey, index, uniqueIndex, check, bigserial, jsonb,
+  pgTable, uuid, text, boolean, integer, timestamp, date, primaryKey, index, uniqueIndex, check, bigint, jsonb, customType,
 } from 'drizzle-orm/pg-core';
+
+// A PostgreSQL transaction id (64-bit), read as text.
+const xid8 = customType<{ data: string }>({ dataType: () => 'xid8' });
 
 const ts = (name: string) => timestamp(name, { withTimezone: true, mode: 'date' });
 
@@ -92,9 +95,11 @@ export const mailLog = pgTable('mail_log', {
   check('mail_log_status_ck', sql`${t.status} in ('waiting', 'sending', 'sent', 'failed', 'cancelled')`),
 ]);
 
-// Append-only, hash-chained. The application role may only INSERT and SELECT here (see the roles migration).
+// Append-only. The application role may only INSERT and SELECT here (see the roles migration). A trigger
+// stamps `tx` (the writer's transaction) and then `id` (from audit_log_id_seq); the seals are in audit_seal.
 export const auditLog = pgTable('audit_log', {
-  id: bigserial('id', { mode: 'number' }).primaryKey(),
+  id: bigint('id', { mode: 'number' }).primaryKey(),
+  tx: xid8('tx'),
   at: ts('at').notNull(),
   actorId: uuid('actor_id'),
   action: text('action').notNull(),
@@ -102,11 +107,7 @@ export const auditLog = pgTable('audit_log', {
   entityId: text('entity_id').notNull(),
   oldValues: jsonb('old_values'),
   newValues: jsonb('new_values'),
-  prevHash: text('prev_hash').notNull(),
-  hash: text('hash').notNull(),
 }, (t) => [
-  uniqueIndex('audit_log_hash_uq').on(t.hash),
-  uniqueIndex('audit_log_prev_hash_uq').on(t.prevHash),
   index('audit_log_entity_idx').on(t.entity, t.entityId),
   index('audit_log_actor_idx').on(t.actorId, t.at),
   index('audit_log_at_idx').on(t.at),

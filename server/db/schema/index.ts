@@ -9,3 +9,4 @@ export * from './practicals.js';
 export * from './findings.js';
 export * from './register.js';
 export * from './rate-limit.js';
+export * from './audit.js';

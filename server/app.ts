@@ -16,6 +16,7 @@ import { originCheck } from './middleware/csrf.js';
 import { errorHandler, notFoundApi } from './middleware/errors.js';
 import { passwordAttemptLimits } from './auth/rate-limit.js';
 import type { JobsOptions } from './jobs/index.js';
+import { createLogger, requestLogger, type Logger } from './logging.js';
 
 export interface AppOptions {
   config: Config;
@@ -23,6 +24,8 @@ export interface AppOptions {
   pool?: pg.Pool;
   /** Where mail goes (default: SMTP_URL or the outbox folder); tests put a transport they can make fail. */
   mailTransport?: MailTransport;
+  /** Where log lines go; by default the process's logger from the configuration. */
+  logger?: Logger;
   /** Start this process's job queue (pg-boss): server/index.ts does, tests that need it do. */
   startJobs?: JobsOptions | boolean;
 }
@@ -34,13 +37,15 @@ export function createApp(opts: AppOptions) {
   const pool = opts.pool ?? createPool(config.databaseUrl);
   const db = createDatabase(pool);
   const mailer = createMailer(db, clock, config.mail, opts.mailTransport);
-  const deps: Deps = { db, pool, clock, config, mailer, audit: makeAudit(clock) };
+  const log = opts.logger ?? createLogger(config.log);
+  const deps: Deps = { db, pool, clock, config, mailer, audit: makeAudit(clock), log };
   const services = buildServices(deps);
   const routeTable = buildRouteTable(deps, services);
 
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  app.use(requestLogger(log));
   app.use(
     helmet({
       contentSecurityPolicy: {

@@ -25,6 +25,9 @@ const envSchema = z.object({
   INVITE_VALID_HOURS: z.coerce.number().int().positive().default(72),
   RESET_VALID_MINUTES: z.coerce.number().int().positive().default(60),
   STATIC_DIR: z.string().default('dist'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  // Readable lines unless told otherwise; a production supervisor collecting logs sets json.
+  LOG_FORMAT: z.enum(['json', 'pretty']).default('pretty'),
 });
 
 export type Config = ReturnType<typeof loadConfig>;
@@ -58,5 +61,6 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     },
     tokens: { inviteMs: e.INVITE_VALID_HOURS * 3_600_000, resetMs: e.RESET_VALID_MINUTES * 60_000 },
     staticDir: path.resolve(e.STATIC_DIR),
+    log: { level: e.LOG_LEVEL, format: e.LOG_FORMAT },
   };
 }

@@ -4,6 +4,7 @@ import type { Clock } from './clock.js';
 import type { Config } from './config.js';
 import type { Mailer } from './mail/mailer.js';
 import type { Audit } from './audit/audit.service.js';
+import type { Logger } from './logging.js';
 
 /** What every feature's services are built from; createApp assembles it once. */
 export interface Deps {
@@ -13,4 +14,5 @@ export interface Deps {
   config: Config;
   mailer: Mailer;
   audit: Audit;
+  log: Logger;
 }

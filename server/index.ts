@@ -7,19 +7,20 @@ await assertAppLogin(config.databaseUrl).catch((err: Error) => {
   console.error(`[server] ${err.message}`);
   process.exit(1);
 });
-const { app, close, jobsReady } = createApp({ config, startJobs: true });
+const { app, close, jobsReady, deps } = createApp({ config, startJobs: true });
+const log = deps.log;
 await jobsReady;
 const server = app.listen(config.port, config.host, () => {
   const addr = server.address();
   const port = typeof addr === 'object' && addr ? addr.port : config.port;
-  console.log(`[server] listening on http://${config.host}:${port}`);
+  log.info(`listening on http://${config.host}:${port}`);
 });
 
 let stopping = false;
 async function shutdown(signal: string) {
   if (stopping) return;
   stopping = true;
-  console.log(`[server] ${signal}: closing`);
+  log.info(`${signal}: closing`);
   server.close(async () => {
     await close();
     process.exit(0);
@@ -30,5 +31,5 @@ async function shutdown(signal: string) {
 process.on('SIGINT', () => void shutdown('SIGINT'));
 process.on('SIGTERM', () => void shutdown('SIGTERM'));
 process.on('unhandledRejection', (reason) => {
-  console.error('[server] unhandled rejection', reason);
+  log.error({ err: reason }, 'unhandled rejection');
 });

@@ -38,7 +38,7 @@ export function passwordAttemptLimits({ db, clock, config }: Pick<Deps, 'db' | '
     ...common(),
     handler: (req: Request, res: Response) => {
       const message = `Too many attempts from this address; wait ${minutesLeft(req)} minute(s) and try again.`;
-      res.status(429).json({ error: { code: 'rate_limited', message } });
+      res.status(429).json({ error: { code: 'rate_limited', message, requestId: String(req.id) } });
     },
   });
 
@@ -49,7 +49,7 @@ export function passwordAttemptLimits({ db, clock, config }: Pick<Deps, 'db' | '
     handler: (req: Request, res: Response) => {
       const field = passwordFieldOf(req) ?? 'password';
       const reason = `too many password attempts from this address; wait ${minutesLeft(req)} minute(s) and try again`;
-      res.status(429).json({ error: { code: 'rate_limited', message: `${field}: ${reason}`, fields: { [field]: reason } } });
+      res.status(429).json({ error: { code: 'rate_limited', message: `${field}: ${reason}`, fields: { [field]: reason }, requestId: String(req.id) } });
     },
   });
 

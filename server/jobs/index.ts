@@ -35,7 +35,7 @@ export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Pro
 
   async function boot(opts: JobsOptions) {
     const b = new PgBoss({ connectionString: deps.config.databaseUrl, schema: JOBS_SCHEMA, max: 4, application_name: 'breakover-jobs', migrate: false, schedule: opts.schedule !== false });
-    b.on('error', (err) => console.error(`[jobs] ${err.message}`));
+    b.on('error', (err) => deps.log.error({ err }, `job queue: ${err.message}`));
     await b.start().catch((err: Error) => {
       throw new Error(`the job queue could not start (${err.message}); the migrations, run as the database owner, set it up`);
     });

@@ -13,4 +13,6 @@ export const peopleApi = {
   invite: (body: InviteBody) => api.post<Person>('/people', body),
   update: (id: string, body: UpdatePersonBody) => api.patch<Person>(`/people/${id}`, body),
   resendInvitation: (id: string) => api.post<{ message: string }>(`/people/${id}/invitation`),
+  /** Admins: every stored session of the person ends (they sign in again). */
+  endSessions: (id: string) => api.delete<{ ended: number }>(`/people/${id}/sessions`),
 };

@@ -24,7 +24,7 @@ export interface NavItem {
 export const navItems: NavItem[] = [
   { title: 'Home', description: 'Your starting page.', icon: mdiHomeOutline, to: 'home', hideOnHome: true },
   { title: 'People', description: 'Invite people, give them roles and sites, and switch accounts off with a reason.', icon: mdiAccountGroupOutline, to: 'people', can: ['invite', 'User'] },
-  { title: 'Outgoing mail', description: 'Every message the portal has sent, with its full text.', icon: mdiEmailFastOutline, to: 'outbox', can: ['read', 'MailLog'] },
+  { title: 'Outgoing mail', description: 'Every message the portal sends: what waits, what went out and what failed, with its full text.', icon: mdiEmailFastOutline, to: 'outbox', can: ['read', 'MailLog'] },
   { title: 'Benches', description: 'Bench set-up, inspection dates and signed pre-use checks.', icon: mdiSolderingIron, to: 'benches', can: ['read', 'Bench'] },
   { title: 'Test instruments', description: 'Measurement category, voltage rating and calibration of the instruments in use.', icon: mdiMeterElectricOutline, to: 'instruments', can: ['read', 'Instrument'] },
   { title: 'My sign-offs and practicals', description: 'Fill in and sign your checklists and bench pre-use checks; see your practicals and their outcomes.', icon: mdiClipboardCheckMultipleOutline, to: 'my-records', can: ['create', 'Signoff'] },

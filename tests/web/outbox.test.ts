@@ -24,7 +24,11 @@ const RAW = [
   '',
 ].join('\n');
 
-const row = { id: '30000000-0000-4000-8000-000000000001', toAddress: 'amelie@example.test', subject: 'Your Breakover account', kind: 'invite', status: 'sent', fileName: 'x.eml', error: null, createdAt: '2026-06-01T10:00:00.000Z', sentAt: '2026-06-01T10:00:01.000Z' };
+const row = {
+  id: '30000000-0000-4000-8000-000000000001', toAddress: 'amelie@example.test', subject: 'Your Breakover account', kind: 'invite', status: 'sent', attempts: 1,
+  nextAttemptAt: '2026-06-01T10:00:00.000Z', fileName: 'x.eml', error: null, createdAt: '2026-06-01T10:00:00.000Z', sentAt: '2026-06-01T10:00:01.000Z',
+};
+const failed = { ...row, id: '30000000-0000-4000-8000-000000000002', subject: 'Reset your Breakover password', kind: 'reset', status: 'failed', attempts: 12, error: '550 5.1.1 mailbox unavailable', sentAt: null };
 
 describe('the outbox', () => {
   it('when a quoted-printable message is decoded, then its link comes out whole', () => {
@@ -35,7 +39,7 @@ describe('the outbox', () => {
 
   it('when the admin opens a message, then it is fetched and its text and link are shown', async () => {
     const calls = fakeFetch((c) => {
-      if (c.url.pathname === '/api/mail') return { body: { items: [row], total: 1, page: 1, pageSize: 25 } };
+      if (c.url.pathname === '/api/mail') return { body: { items: [row], total: 1, page: 1, pageSize: 25, counts: { sent: 1 } } };
       if (c.url.pathname === `/api/mail/${row.id}`) return { body: { ...row, raw: RAW } };
       return undefined;
     });
@@ -49,8 +53,31 @@ describe('the outbox', () => {
   });
 
   it('when nothing has been sent, then it says so', async () => {
-    fakeFetch((c) => (c.url.pathname === '/api/mail' ? { body: { items: [], total: 0, page: 1, pageSize: 25 } } : undefined));
+    fakeFetch((c) => (c.url.pathname === '/api/mail' ? { body: { items: [], total: 0, page: 1, pageSize: 25, counts: {} } } : undefined));
     await mountWith(OutboxView, { user: userWith(['admin']), path: '/outbox' });
     expect(document.body.textContent).toContain('No messages yet');
+  });
+
+  it('when a message has failed, then its error and attempts show, and Retry asks the server to send it again and reloads', async () => {
+    let retried = false;
+    const calls = fakeFetch((c) => {
+      if (c.method === 'POST' && c.url.pathname === `/api/mail/${failed.id}/retry`) {
+        retried = true;
+        return { body: { ...failed, status: 'waiting', attempts: 0 } };
+      }
+      if (c.url.pathname === '/api/mail') {
+        const item = retried ? { ...failed, status: 'sent', attempts: 1, error: null } : failed;
+        return { body: { items: [item], total: 1, page: 1, pageSize: 25, counts: retried ? { sent: 1 } : { failed: 1 } } };
+      }
+      return undefined;
+    });
+    await mountWith(OutboxView, { user: userWith(['admin']), path: '/outbox' });
+    expect(document.body.textContent).toContain('550 5.1.1 mailbox unavailable');
+    expect(document.body.textContent).toContain('Failed (1)');
+    expect([...document.querySelectorAll('tbody tr td')].map((td) => td.textContent?.trim()), 'the attempts column').toContain('12');
+    getByRole('button', 'Retry “Reset your Breakover password” to amelie@example.test').click();
+    await vi.waitFor(() => expect(document.body.textContent).toContain('Sent (1)'));
+    expect(calls.filter((c) => c.method === 'POST').map((c) => c.url.pathname)).toEqual([`/api/mail/${failed.id}/retry`]);
+    expect(document.body.textContent).not.toContain('mailbox unavailable');
   });
 });

@@ -84,5 +84,5 @@ describe('permission matrix', () => {
         expect.soft(Object.keys(res.body.error?.fields ?? {})[0], `${keyOf(r)} names the param`).toMatch(/^params\./);
       }
     }
-  });
+  }, 120_000); // about a thousand requests
 });

@@ -50,7 +50,7 @@ async function start(env: Record<string, string>): Promise<{ proc: ChildProcess;
 }
 
 async function signedIn(base: string) {
-  const res = await fetch(`${base}/api/session`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'admin@demo.breakover.test', password: DEMO_PASSWORD }) });
+  const res = await fetch(`${base}/api/session`, { method: 'POST', headers: { 'content-type': 'application/json', origin: base }, body: JSON.stringify({ email: 'admin@demo.breakover.test', password: DEMO_PASSWORD }) });
   expect(res.status).toBe(200);
   return res.headers.get('set-cookie')!.split(';')[0];
 }

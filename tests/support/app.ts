@@ -56,8 +56,10 @@ export async function makeTestApp(opts: TestAppOptions = {}) {
     config,
     outbox,
     database,
-    request: () => request(built.app),
-    agent: () => request.agent(built.app),
+    /** One-off requests; a fresh agent each call (no cookie kept), sending Origin as our pages do. */
+    request: () => withOrigin(built.app),
+    /** An agent that keeps its cookies, sending Origin as our pages do (the API refuses writes without it). */
+    agent: () => withOrigin(built.app),
     /** A connection as the database owner, bypassing the application role: for tamper tests only. */
     ownerQuery: async (text: string, params: unknown[] = []) => {
       const c = new pg.Client({ connectionString: database.ownerUrl });
@@ -74,6 +76,13 @@ export async function makeTestApp(opts: TestAppOptions = {}) {
 }
 
 export type TestApp = Awaited<ReturnType<typeof makeTestApp>>;
+
+/** A supertest agent whose every request carries `Origin: PUBLIC_URL`, as a browser on our pages sends it. */
+export function withOrigin(app: Parameters<typeof request.agent>[0]) {
+  const agent = request.agent(app);
+  agent.set('Origin', PUBLIC_URL);
+  return agent;
+}
 
 /** The .eml files in an outbox folder, oldest message first (files are named by when the message was recorded). */
 export const readOutbox = (dir: string) => readdirSync(dir).filter((f) => f.endsWith('.eml')).sort().map((f) => readFileSync(path.join(dir, f), 'utf8'));

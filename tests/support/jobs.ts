@@ -2,7 +2,6 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import request from 'supertest';
 import { afterAll } from 'vitest';
 import { loadConfig } from '../../server/config.js';
 import { createApp } from '../../server/app.js';
@@ -10,7 +9,7 @@ import { SettableClock } from '../../server/clock.js';
 import { createTransport, type MailTransport } from '../../server/mail/transport.js';
 import { seedDemoIfEmpty } from '../../server/seed/index.js';
 import { createTestDatabase } from './db.js';
-import { PUBLIC_URL, TEST_AUDIT_KEY, readOutbox } from './app.js';
+import { PUBLIC_URL, TEST_AUDIT_KEY, readOutbox, withOrigin } from './app.js';
 
 const env = (url: string, outbox: string) => ({
   DATABASE_URL: url, PUBLIC_URL, SESSION_SECRET: 'test-secret-'.padEnd(40, 'x'), MAIL_OUTBOX_DIR: outbox, SIGNIN_RATE_LIMIT: '1000',
@@ -85,8 +84,8 @@ export async function makeJobsTestApp(opts: { start?: string } = {}) {
 
   return {
     ...built, clock, config, outbox, database, transport, startSecondWorker, stopSecondWorkers, waitForJobs,
-    agent: () => request.agent(built.app),
-    request: () => request(built.app),
+    agent: () => withOrigin(built.app),
+    request: () => withOrigin(built.app),
     ownerQuery: async (text: string, params: unknown[] = []) => {
       const pg = (await import('pg')).default;
       const c = new pg.Client({ connectionString: database.ownerUrl });

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { uuid } from '../../shared/schemas/common.js';
 import type { Deps } from '../deps.js';
 import { subjectOf, type Actor, type AppAbility } from '../../shared/abilities.js';
 import { ACKNOWLEDGED_MEANING, ASSESSED_MEANING, type Outcome } from '../../shared/schemas/practicals.js';
@@ -50,7 +50,9 @@ export function makePracticalSigning(deps: Deps, signatures: Signatures) {
     if (actor.id !== p.assessorId && actor.id !== p.technicianId) throw forbidden(ability.can('read', subjectOf('Practical', p)) ? 'The outcome is acknowledged on the assessor’s device or the technician’s own.' : 'You may not see this practical.');
     if (p.status === 'in_progress') throw conflict('The assessor signs the outcome first.', { status: p.status });
     if (p.status === 'acknowledged') throw conflict('The technician has already acknowledged this outcome.', { status: p.status });
-    const named = z.uuid().safeParse(body.technician).success ? body.technician : (await repo.findPersonByEmail(db, body.technician))?.id;
+    // The technician names themselves by id (any letter case, parsed to one spelling) or by e-mail.
+    const asId = uuid().safeParse(body.technician);
+    const named = asId.success ? asId.data : (await repo.findPersonByEmail(db, body.technician))?.id;
     if (named !== p.technicianId) throw forbidden('Only the technician assessed acknowledges the outcome, with their own e-mail and password.');
     const signer = await signatures.verify(p.technicianId, body.password);
     const now = clock.now();

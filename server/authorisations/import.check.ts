@@ -9,6 +9,8 @@ import { overlapping } from './periods.repository.js';
 import { priorProblems } from './prior.js';
 import { endOfLocalDay, startOfLocalDay } from './dates.js';
 import type { ImportRow } from './import.parse.js';
+import { isRealDate, DATE_RANGE_MESSAGE } from '../../shared/schemas/common.js';
+import { textProblem, type TextRules } from '../../shared/schemas/text.js';
 
 export interface NewPerson {
   email: string;
@@ -28,7 +30,22 @@ export interface PlannedRow {
 
 const DATE = /^\d{4}-\d{2}-\d{2}$/;
 const EMAIL = /^[^\s@]+@[^\s@]+\.[^\s@]+$/;
-const validDate = (s: string) => DATE.test(s) && !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s);
+const validDate = isRealDate;
+const dateProblem = (s: string) => (DATE.test(s) ? DATE_RANGE_MESSAGE : 'use the form YYYY-MM-DD');
+// The same rules as the forms' fields (shared/schemas/text.ts), with the same length limits.
+const CELL_RULES: [keyof ImportRow, TextRules, number][] = [
+  ['email', {}, 254], ['name', { letter: true }, 120], ['site', {}, 20], ['roles', {}, 200], ['scope', {}, 24],
+  ['attested_by', { letter: true }, 200], ['note', { multiline: true }, 1000],
+];
+
+/** A row's cells that break the text rules, as "column: problem". */
+function cellProblems(row: ImportRow): string[] {
+  return CELL_RULES.flatMap(([col, rules, max]) => {
+    const v = String(row[col]);
+    const problem = textProblem(v, rules) ?? (v.length > max ? `must have at most ${max} characters` : null);
+    return problem ? [`${col}: ${problem}`] : [];
+  });
+}
 
 /** Every row's problems, worked out against the database without writing anything. */
 export async function checkImport(db: Executor, actor: Actor, ability: AppAbility, rows: ImportRow[], now: Date): Promise<PlannedRow[]> {
@@ -41,6 +58,11 @@ export async function checkImport(db: Executor, actor: Actor, ability: AppAbilit
     const problems: string[] = [];
     let holder: PersonRow | null = null;
     let newPerson: NewPerson | null = null;
+    const cells = cellProblems(row);
+    if (cells.length) {
+      planned.push({ row, problems: cells, holder, newPerson, scope: null });
+      continue;
+    }
     if (!EMAIL.test(row.email)) problems.push('email: not an e-mail address');
     const existing = problems.length ? undefined : await findUserByEmail(db, row.email);
     if (existing) {
@@ -70,8 +92,8 @@ export async function checkImport(db: Executor, actor: Actor, ability: AppAbilit
     }
     const scope = scopes.get(row.scope) ?? null;
     if (!scope) problems.push(`scope: no scope with code “${row.scope}”`);
-    if (!validDate(row.issued_on)) problems.push('issued_on: use the form YYYY-MM-DD');
-    if (!validDate(row.expires_on)) problems.push('expires_on: use the form YYYY-MM-DD');
+    if (!validDate(row.issued_on)) problems.push(`issued_on: ${dateProblem(row.issued_on)}`);
+    if (!validDate(row.expires_on)) problems.push(`expires_on: ${dateProblem(row.expires_on)}`);
     if (row.attested_by.length < 3) problems.push('attested_by: name who attested the paper record');
     const who = holder ?? (newPerson ? { id: '', name: newPerson.name, email: newPerson.email, active: true, siteId: newPerson.siteId, siteName: '', timeZone: newPerson.timeZone } : null);
     if (who && validDate(row.issued_on) && validDate(row.expires_on)) {

@@ -1,5 +1,6 @@
 import { parse } from 'csv-parse/sync';
 import { unprocessable } from '../errors.js';
+import { cleanText } from '../../shared/schemas/text.js';
 
 export const IMPORT_COLUMNS = ['email', 'name', 'site', 'roles', 'scope', 'issued_on', 'expires_on', 'attested_by', 'note'] as const;
 const REQUIRED = ['email', 'name', 'site', 'scope', 'issued_on', 'expires_on', 'attested_by'] as const;
@@ -22,7 +23,7 @@ export function parseImport(csv: string): ImportRow[] {
   if (unknown.length) throw unprocessable(`csv: unknown column(s) ${unknown.join(', ')}`, { csv: `unknown column(s) ${unknown.join(', ')}` });
   if (parsed.length > 2000) throw unprocessable('csv: at most 2000 rows per file', { csv: 'at most 2000 rows per file' });
   return parsed.map(({ record, info }) => {
-    const row = Object.fromEntries(IMPORT_COLUMNS.map((c) => [c, (record[c] ?? '').trim()])) as unknown as ImportRow;
+    const row = Object.fromEntries(IMPORT_COLUMNS.map((c) => [c, cleanText(record[c] ?? '')])) as unknown as ImportRow;
     row.email = row.email.toLowerCase();
     row.scope = row.scope.toUpperCase();
     row.line = info.lines;

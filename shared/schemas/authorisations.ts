@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import './messages.js';
+import { line, name, paragraph } from './text.js';
 import { isoDate, pageQuery, uuid } from './common.js';
 import { CERTIFICATE_KINDS } from '../authorisations/kinds.js';
 
 const password = z.string().min(1, 're-enter your password to sign').max(1024, 'password is too long');
-const reason = z.string().trim().min(3, 'give a reason').max(500, 'use at most 500 characters');
+const reason = paragraph().min(3, 'give a reason').max(500, 'use at most 500 characters');
 
 export const requirementBody = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('procedure_ack'), procedureId: uuid('choose a procedure') }).strict(),
@@ -20,8 +21,8 @@ export const requirementBody = z.discriminatedUnion('kind', [
 
 export const scopeBody = z.object({
   code: z.string().trim().toUpperCase().regex(/^[A-Z0-9][A-Z0-9-]{1,23}$/, 'use 2–24 capital letters, digits or hyphens'),
-  title: z.string().trim().min(3, 'enter a title').max(160, 'use at most 160 characters'),
-  description: z.string().trim().max(2000, 'use at most 2000 characters').default(''),
+  title: name().min(3, 'enter a title').max(160, 'use at most 160 characters'),
+  description: paragraph().max(2000, 'use at most 2000 characters').default(''),
   maxVoltageV: z.number({ message: 'enter the voltage limit in volts' }).int('use whole volts').min(1, 'at least 1 V').max(1000, 'at most 1000 V'),
   maxCurrentA: z.number({ message: 'enter the current limit in amperes' }).gt(0, 'more than 0 A').max(100, 'at most 100 A'),
   allowsLiveWork: z.boolean(),
@@ -36,8 +37,8 @@ export const scopeBody = z.object({
 export const certificateBody = z.object({
   holderId: uuid('choose the person').optional(),
   kind: z.enum(CERTIFICATE_KINDS, { message: 'choose a kind of certificate' }),
-  issuer: z.string().trim().min(2, 'name who issued it').max(160),
-  reference: z.string().trim().max(80).default(''),
+  issuer: name().min(2, 'name who issued it').max(160),
+  reference: line().max(80).default(''),
   issuedOn: isoDate,
   expiresOn: isoDate,
   evidenceId: uuid('evidenceId must be an uploaded file id').optional(),
@@ -52,9 +53,9 @@ export const priorBody = z.object({
   scopeId: uuid('choose the scope'),
   issuedOn: isoDate,
   expiresOn: isoDate,
-  attestedBy: z.string().trim().min(3, 'name who attested the paper record').max(200),
+  attestedBy: name().min(3, 'name who attested the paper record').max(200),
   evidenceId: uuid('evidenceId must be an uploaded file id').optional(),
-  note: z.string().trim().max(1000).default(''),
+  note: paragraph().max(1000).default(''),
   password,
 }).strict();
 
@@ -84,7 +85,7 @@ export const certificatesQuery = pageQuery.omit({ q: true }).extend({
 export const periodQuery = z.object({ periodId: uuid('periodId must be a UUID').optional() });
 export const personScopeParams = z.object({ personId: uuid('personId must be a UUID'), scopeId: uuid('scopeId must be a UUID') });
 export const personParam = z.object({ personId: uuid('personId must be a UUID') });
-export const codeParam = z.object({ code: z.string().max(100) });
+export const codeParam = z.object({ code: line().max(100) });
 
 export type RequirementBody = z.infer<typeof requirementBody>;
 export type ScopeBody = z.infer<typeof scopeBody>;

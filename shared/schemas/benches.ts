@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
+import { name } from './text.js';
 import { pageQuery, uuid } from './common.js';
 import { activeFilter, calendarDate, equipmentCode, equipmentFlag, notes } from './equipment-common.js';
 import { RCD_TYPES } from '../equipment-terms.js';
@@ -9,7 +10,7 @@ export { RCD_TYPES, type RcdType } from '../equipment-terms.js';
 export const benchFields = z.object({
   siteId: uuid('choose a site'),
   code: equipmentCode,
-  name: z.string().trim().min(2, 'enter a name').max(120, 'use at most 120 characters'),
+  name: name().min(2, 'enter a name').max(120, 'use at most 120 characters'),
   supplyVoltage: z.number().int('whole volts').min(1, 'between 1 and 1000 V').max(1000, 'between 1 and 1000 V'),
   supplyFrequency: z.union([z.literal(50), z.literal(60)], { message: 'choose 50 or 60 Hz' }),
   isolatingTransformer: z.boolean(),

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
+import { line, name, paragraph } from './text.js';
 import { uuid } from './common.js';
 import { LIMIT_PRESETS } from '../engine/limits.js';
 import { COMPUTED_QUANTITIES, COMPUTED_QUANTITY_IDS } from '../procedures/quantities.js';
@@ -50,15 +51,15 @@ export const acceptanceRuleSchema = z.discriminatedUnion('type', [
 export type AcceptanceRule = z.infer<typeof acceptanceRuleSchema>;
 
 const key = uuid('key must be a UUID').optional();
-const prompt = z.string().trim().min(3, 'write the item (at least 3 characters)').max(500, 'use at most 500 characters');
-const guidance = z.string().trim().max(1000, 'use at most 1000 characters').nullish().transform((v) => v || null);
+const prompt = line().min(3, 'write the item (at least 3 characters)').max(500, 'use at most 500 characters');
+const guidance = paragraph().max(1000, 'use at most 1000 characters').nullish().transform((v) => v || null);
 
 export const checklistItemSchema = z
   .discriminatedUnion('kind', [
     z.object({ kind: z.literal('tick'), key, prompt, guidance }),
     z.object({ kind: z.literal('text'), key, prompt, guidance }),
     z.object({ kind: z.literal('evidence'), key, prompt, guidance }),
-    z.object({ kind: z.literal('measurement'), key, prompt, guidance, unit: z.string().trim().min(1, 'give the unit').max(20), rule: acceptanceRuleSchema }),
+    z.object({ kind: z.literal('measurement'), key, prompt, guidance, unit: line().min(1, 'give the unit').max(20), rule: acceptanceRuleSchema }),
   ])
   .superRefine((item, ctx) => {
     if (item.kind !== 'measurement') return;
@@ -71,7 +72,7 @@ export type ChecklistItem = z.infer<typeof checklistItemSchema>;
 export const checklistSchema = z.object({
   key,
   kind: z.enum(CHECKLIST_KINDS, { message: 'choose the kind of checklist' }),
-  title: z.string().trim().min(3, 'give the checklist a title').max(200),
+  title: name().min(3, 'give the checklist a title').max(200),
   items: z.array(checklistItemSchema).min(1, 'add at least one item').max(100, 'at most 100 items'),
 });
 export type ChecklistInput = z.input<typeof checklistSchema>;

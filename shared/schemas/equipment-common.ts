@@ -1,13 +1,10 @@
 import { z } from 'zod';
 import './messages.js';
 import { isoDate } from './common.js';
+import { paragraph } from './text.js';
 
-/** A real calendar date (the common isoDate only checks the shape: 2026-02-30 would pass). */
-export const calendarDate = isoDate.refine((v) => {
-  const d = new Date(`${v}T00:00:00Z`);
-  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === v;
-}, 'not a calendar date');
-
+/** A real calendar date in the common span (the shared isoDate checks both). */
+export const calendarDate = isoDate;
 export const equipmentCode = z
   .string()
   .trim()
@@ -15,7 +12,7 @@ export const equipmentCode = z
   .max(20, 'use 2 to 20 characters')
   .regex(/^[A-Z0-9-]+$/, 'use capital letters, digits and hyphens');
 
-export const notes = z.string().trim().max(1000, 'use at most 1000 characters');
+export const notes = paragraph().max(1000, 'use at most 1000 characters');
 
 /** How a bench or an instrument stands today: a refusal blocks its use for a practical, a warning is shown. */
 export const equipmentFlag = z.object({

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
+import { line } from './text.js';
 import { pageQuery, recordId, uuid } from './common.js';
 
 export const EVIDENCE_MEDIA_TYPES = ['image/jpeg', 'image/png', 'application/pdf', 'text/csv'] as const;
@@ -23,7 +24,7 @@ export const evidenceUploadFields = z
     ownerId: uuid('ownerId must be a person id').optional(),
     entity: z.enum(EVIDENCE_ENTITIES, { message: `use one of: ${EVIDENCE_ENTITIES.join(', ')}` }).default('person'),
     entityId: recordId('give the record id').optional(),
-    caption: z.string().trim().max(500, 'use at most 500 characters').optional(),
+    caption: line().max(500, 'use at most 500 characters').optional(),
   })
   .strict();
 

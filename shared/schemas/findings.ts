@@ -1,9 +1,10 @@
 import { z } from 'zod';
 import './messages.js';
+import { paragraph } from './text.js';
 import { pageQuery, recordId, uuid } from './common.js';
 import { FINDING_SEVERITIES, FINDING_STATUSES, FINDING_TARGETS } from '../register/kinds.js';
 
-const text = (what: string, max: number) => z.string().trim().min(3, `write the ${what}`).max(max, `use at most ${max} characters`);
+const text = (what: string, max: number) => paragraph().min(3, `write the ${what}`).max(max, `use at most ${max} characters`);
 
 export const findingBody = z.object({
   entity: z.enum(FINDING_TARGETS, { message: `use one of: ${FINDING_TARGETS.join(', ')}` }),

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
+import { line } from './text.js';
 import { pageQuery, uuid } from './common.js';
 import { activeFilter, calendarDate, equipmentFlag, notes } from './equipment-common.js';
 import { INSTRUMENT_KINDS, MEASUREMENT_CATEGORIES } from '../equipment-terms.js';
@@ -9,9 +10,9 @@ export { INSTRUMENT_KINDS, INSTRUMENT_KIND_LABELS, MEASUREMENT_CATEGORIES, RMS_R
 export const instrumentFields = z.object({
   siteId: uuid('choose a site'),
   kind: z.enum(INSTRUMENT_KINDS, { message: 'choose a kind' }),
-  make: z.string().trim().min(1, 'enter the make').max(80, 'use at most 80 characters'),
-  model: z.string().trim().min(1, 'enter the model').max(80, 'use at most 80 characters'),
-  serial: z.string().trim().min(1, 'enter the serial number').max(60, 'use at most 60 characters'),
+  make: line().min(1, 'enter the make').max(80, 'use at most 80 characters'),
+  model: line().min(1, 'enter the model').max(80, 'use at most 80 characters'),
+  serial: line().min(1, 'enter the serial number').max(60, 'use at most 60 characters'),
   measurementCategory: z.enum(MEASUREMENT_CATEGORIES, { message: 'choose CAT II, III or IV, or none' }).nullable(),
   voltageRating: z.number().int('whole volts').min(1, 'at least 1 V').max(10_000, 'at most 10000 V').nullable(),
   trueRms: z.boolean(),

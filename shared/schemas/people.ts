@@ -1,9 +1,10 @@
 import { z } from 'zod';
 import './messages.js';
+import { name as personName, paragraph } from './text.js';
 import { email, roleSchema } from './auth.js';
 import { isoDate, pageQuery, uuid } from './common.js';
 
-const name = z.string().trim().min(1, 'enter a name').max(120, 'use at most 120 characters');
+const name = personName().min(1, 'enter a name').max(120, 'use at most 120 characters');
 
 export const inviteBody = z.object({
   email,
@@ -21,7 +22,7 @@ export const updatePersonBody = z
     roles: z.array(roleSchema).min(1, 'give at least one role').max(5).optional(),
     coveredSiteIds: z.array(uuid()).max(100).optional(),
     active: z.boolean().optional(),
-    deactivatedReason: z.string().trim().min(3, 'give a reason').max(500).optional(),
+    deactivatedReason: paragraph().min(3, 'give a reason').max(500).optional(),
     accessEndsOn: isoDate.nullable().optional(),
   })
   .strict();

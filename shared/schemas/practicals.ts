@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
+import { line, paragraph } from './text.js';
 import { pageQuery, uuid } from './common.js';
 import { OUTCOMES, PRACTICAL_STATUSES } from '../practicals/terms.js';
 
@@ -72,17 +73,17 @@ export const openPracticalBody = z.object({
 });
 export type OpenPracticalBody = z.infer<typeof openPracticalBody>;
 
-export const witnessBody = z.object({ note: z.string().trim().max(1000, 'use at most 1000 characters').nullish().transform((v) => v || null) });
+export const witnessBody = z.object({ note: paragraph().max(1000, 'use at most 1000 characters').nullish().transform((v) => v || null) });
 export const outcomeBody = z.object({
   outcome: z.enum(OUTCOMES, { message: 'choose competent or not yet competent' }),
-  comment: z.string().trim().min(3, 'say in a few words how it went').max(4000, 'use at most 4000 characters'),
+  comment: paragraph().min(3, 'say in a few words how it went').max(4000, 'use at most 4000 characters'),
   password: z.string().min(1, 're-enter your password to sign').max(1024),
 });
 export const acknowledgeBody = z.object({
-  technician: z.string().trim().min(1, "give the technician's e-mail").max(320),
+  technician: line().min(1, "give the technician's e-mail").max(320),
   password: z.string().min(1, 'the technician re-enters their own password').max(1024),
 });
-export const correctionBody = z.object({ reason: z.string().trim().min(5, 'say what was wrong (at least 5 characters)').max(2000, 'use at most 2000 characters') });
+export const correctionBody = z.object({ reason: paragraph().min(5, 'say what was wrong (at least 5 characters)').max(2000, 'use at most 2000 characters') });
 
 export const practicalListQuery = pageQuery.extend({
   view: z.enum(['mine', 'site']).default('mine'),
@@ -94,5 +95,5 @@ export const practicalListQuery = pageQuery.extend({
 });
 export type PracticalListQuery = z.infer<typeof practicalListQuery>;
 
-export const candidatesQuery = z.object({ q: z.string().trim().max(100).optional() });
+export const candidatesQuery = z.object({ q: line().max(100).optional() });
 export const holdPointParams = z.object({ id: uuid('id must be a UUID'), stepKey: uuid('stepKey must be a UUID') });

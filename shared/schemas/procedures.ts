@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
+import { line, name, paragraph } from './text.js';
 import { isoDate, pageQuery, uuid } from './common.js';
 import { checklistSchema } from './checklists.js';
 
@@ -39,16 +40,16 @@ export const ACKNOWLEDGEMENT_MEANING = 'I will work to this version';
 
 const code = z.string().trim().toUpperCase().min(3, 'use 3 to 24 characters').max(24, 'use 3 to 24 characters')
   .regex(/^[A-Z0-9][A-Z0-9-]*$/, 'use capital letters, digits and hyphens');
-const title = z.string().trim().min(3, 'give a title (at least 3 characters)').max(200, 'use at most 200 characters');
+const title = name().min(3, 'give a title (at least 3 characters)').max(200, 'use at most 200 characters');
 const category = z.enum(PROCEDURE_CATEGORIES, { message: 'choose a category' });
 const reviewPeriodMonths = z.coerce.number({ message: 'enter a number of months' }).int('use whole months').min(1, 'at least 1 month').max(60, 'at most 60 months');
-const listLine = z.string().trim().min(2, 'write at least 2 characters').max(300, 'use at most 300 characters');
+const listLine = line().min(2, 'write at least 2 characters').max(300, 'use at most 300 characters');
 const list = (max: number) => z.array(listLine).max(max, `at most ${max} entries`);
 
 export const stepSchema = z.object({
   key: uuid('key must be a UUID').optional(),
-  text: z.string().trim().min(3, 'write the step (at least 3 characters)').max(2000, 'use at most 2000 characters'),
-  caution: z.string().trim().max(1000, 'use at most 1000 characters').nullish().transform((v) => v || null),
+  text: paragraph().min(3, 'write the step (at least 3 characters)').max(2000, 'use at most 2000 characters'),
+  caution: paragraph().max(1000, 'use at most 1000 characters').nullish().transform((v) => v || null),
   holdPoint: z.boolean().default(false),
 });
 export type StepInput = z.input<typeof stepSchema>;
@@ -62,13 +63,13 @@ export const saveDraftBody = z.object({
   title,
   category,
   reviewPeriodMonths,
-  scope: z.string().trim().max(4000, 'use at most 4000 characters').default(''),
+  scope: paragraph().max(4000, 'use at most 4000 characters').default(''),
   hazards: list(30).default([]),
   ppe: list(30).default([]),
   equipment: list(40).default([]),
   steps: z.array(stepSchema).max(80, 'at most 80 steps').default([]),
   checklists: z.array(checklistSchema).max(10, 'at most 10 checklists').default([]),
-  changeSummary: z.string().trim().max(2000, 'use at most 2000 characters').nullish().transform((v) => v || null),
+  changeSummary: paragraph().max(2000, 'use at most 2000 characters').nullish().transform((v) => v || null),
   changeClass: z.enum(CHANGE_CLASSES, { message: 'choose a change class' }).nullish().transform((v) => v ?? null),
   rereadDays: z.coerce.number().int('use whole days').min(1, 'at least 1 day').max(180, 'at most 180 days').default(14),
 });
@@ -79,9 +80,9 @@ export const versionParams = z.object({ id: uuid('id must be a UUID'), versionId
 export const personParams = z.object({ id: uuid('id must be a UUID'), userId: uuid('userId must be a UUID') });
 
 export const signBody = z.object({ password: z.string().min(1, 're-enter your password to sign').max(1024) });
-export const returnBody = z.object({ comment: z.string().trim().min(3, 'say what needs changing').max(4000) });
-export const withdrawBody = z.object({ reason: z.string().trim().min(3, 'give a reason').max(1000) });
-export const extensionBody = z.object({ dueOn: isoDate, reason: z.string().trim().min(3, 'give a reason').max(1000) });
+export const returnBody = z.object({ comment: paragraph().min(3, 'say what needs changing').max(4000) });
+export const withdrawBody = z.object({ reason: paragraph().min(3, 'give a reason').max(1000) });
+export const extensionBody = z.object({ dueOn: isoDate, reason: paragraph().min(3, 'give a reason').max(1000) });
 export const compareQuery = z.object({ from: uuid('choose the older version'), to: uuid('choose the newer version') });
 export const reminderRunBody = z.object({
   offsets: z.array(z.number().int().min(0).max(365)).min(1).max(10).default([30, 7, 0]),

@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import './messages.js';
-import { pageQuery, uuid } from './common.js';
+import { isoMoment, pageQuery, uuid } from './common.js';
+import { line, paragraph } from './text.js';
 import { REGISTER_SORTS, REGISTER_STATES, REGISTER_VIEWS } from '../register/kinds.js';
 
 /** A moment with its offset, e.g. 2026-03-05T14:30:00Z or 2026-03-05T15:30:00+01:00. */
-export const moment = z.iso.datetime({ offset: true, message: 'use a date and time with its offset, such as 2026-03-05T14:30:00Z' });
+export const moment = isoMoment;
 
 const bool = z.enum(['true', 'false'], { message: 'use true or false' });
 
@@ -18,7 +19,7 @@ export const registerFilter = momentQuery.extend({
   siteId: uuid('siteId must be a site id').optional(),
   scopeId: uuid('scopeId must be a scope id').optional(),
   personId: uuid('personId must be a person id').optional(),
-  q: z.string().trim().max(200).optional(),
+  q: line().max(200).optional(),
   state: z.enum(REGISTER_STATES, { message: `use one of: ${REGISTER_STATES.join(', ')}` }).optional(),
   liveWork: bool.optional(),
   sort: z.enum(REGISTER_SORTS).default('person'),
@@ -45,6 +46,6 @@ export const incidentBody = z.object({
   personId: uuid('choose the person'),
   at: moment,
   benchId: uuid('benchId must be a bench id').optional(),
-  note: z.string().trim().max(1000, 'use at most 1000 characters').default(''),
+  note: paragraph().max(1000, 'use at most 1000 characters').default(''),
 }).strict();
 export type IncidentBody = z.infer<typeof incidentBody>;

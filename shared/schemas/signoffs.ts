@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import './messages.js';
+import { line, paragraph } from './text.js';
 import { pageQuery, uuid } from './common.js';
 import { SIGNOFF_KINDS, SIGNOFF_STATUSES } from '../practicals/terms.js';
 
@@ -11,14 +12,14 @@ export { SIGNOFF_KINDS, SIGNOFF_STATUSES, SIGNOFF_KIND_LABELS, SIGNOFF_STATUS_LA
  */
 export const entryBody = z.object({
   checked: z.boolean({ message: 'tick or untick' }).optional(),
-  text: z.string().trim().max(4000, 'use at most 4000 characters').optional(),
+  text: paragraph().max(4000, 'use at most 4000 characters').optional(),
   evidenceId: uuid('choose an uploaded file').optional(),
   value: z.union([z.number({ message: 'enter a number' }).min(-1e9).max(1e9), z.literal('did-not-trip')], { error: 'enter a number, or "did-not-trip" for a trip test' }).optional(),
-  unit: z.string().trim().min(1, 'give the unit').max(20).optional(),
+  unit: line().min(1, 'give the unit').max(20).optional(),
   instrumentId: uuid('choose the instrument used').optional(),
   /** Only where no expectation could be computed: the assessor's own judgement. */
   assessorVerdict: z.enum(['pass', 'fail'], { message: 'say whether the reading is acceptable' }).optional(),
-  note: z.string().trim().max(1000, 'use at most 1000 characters').optional(),
+  note: paragraph().max(1000, 'use at most 1000 characters').optional(),
 }).strict();
 export type EntryBody = z.infer<typeof entryBody>;
 
@@ -36,7 +37,7 @@ export const submitSignoffBody = z.object({
   recordAsFailed: z.boolean().default(false),
 });
 export const countersignBody = z.object({ password: z.string().min(1, 're-enter your password to sign').max(1024) });
-export const returnSignoffBody = z.object({ comment: z.string().trim().min(3, 'say what needs correcting').max(4000) });
+export const returnSignoffBody = z.object({ comment: paragraph().min(3, 'say what needs correcting').max(4000) });
 
 export const signoffListQuery = pageQuery.extend({
   view: z.enum(['mine', 'site']).default('mine'),

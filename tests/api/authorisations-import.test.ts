@@ -66,7 +66,7 @@ describe('CSV import of people and their paper authorisations', () => {
     const byLine = Object.fromEntries(res.body.rows.map((r: { line: number; problems: string[] }) => [r.line, r.problems]));
     expect(byLine[2]).toEqual([]);
     expect(byLine[3]).toEqual(['site: no site with code “XXX-9”']);
-    expect(byLine[4]).toEqual(expect.arrayContaining(['roles: you may give only technician, assessor', 'scope: no scope with code “NO-SUCH”', 'issued_on: use the form YYYY-MM-DD', 'attested_by: name who attested the paper record']));
+    expect(byLine[4]).toEqual(expect.arrayContaining(['roles: you may give only technician, assessor', 'scope: no scope with code “NO-SUCH”', 'issued_on: must be a real date between 1900 and 2199', 'attested_by: name who attested the paper record']));
     expect(byLine[5], 'Jörg covers Cleveland, so Marcus Boateng is fine').toEqual([]);
     expect(await counts()).toEqual(before);
   });

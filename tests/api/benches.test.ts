@@ -45,7 +45,7 @@ describe('benches', () => {
     expect(patch.body.error.fields.rcdRatedResidualMa).toMatch(/leave empty when no RCD/);
     expect((await manager.get(`/api/benches/${bench['LEJ-B1']}`)).body.rcdType).toBe('A');
     const badDate = await manager.post('/api/benches').send(goodBench(site['LEJ-W1'], 'LEJ-B8', '2026-02-30'));
-    expect(badDate.body.error.fields.nextInspectionOn).toBe('not a calendar date');
+    expect(badDate.body.error.fields.nextInspectionOn).toBe('must be a real date between 1900 and 2199');
     expect((await manager.get('/api/benches').query({ q: 'LEJ-B8' })).body.total).toBe(0);
   });
 

@@ -1,4 +1,4 @@
-import { stringify } from 'csv-stringify/sync';
+import { csvText } from '../csv.js';
 import type { Deps } from '../deps.js';
 import { subjectOf, type Actor, type AppAbility } from '../../shared/abilities.js';
 import type { FindingBody, FindingsQuery } from '../../shared/schemas/findings.js';
@@ -64,7 +64,7 @@ export function makeFindingsService(deps: Deps) {
 
   async function csv(actor: Actor, q: Omit<FindingsQuery, 'page' | 'pageSize'>) {
     const rows = await all(q);
-    const text = stringify([FINDING_CSV_COLUMNS, ...rows.map(findingCsvLine)]);
+    const text = csvText([FINDING_CSV_COLUMNS, ...rows.map(findingCsvLine)]);
     await db.transaction((tx) => audit(tx, { actorId: actor.id, action: 'findings.exported', entity: 'finding', entityId: 'export', newValues: { format: 'csv', filter: q, rows: rows.length } }));
     return text;
   }

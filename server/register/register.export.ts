@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { once } from 'node:events';
 import type { Response } from 'express';
-import { stringify } from 'csv-stringify';
+import { csvStream } from '../csv.js';
 import type { Deps } from '../deps.js';
 import type { Actor } from '../../shared/abilities.js';
 import { eachRegisterBatch } from './register.cursor.js';
@@ -30,7 +30,7 @@ export function makeRegisterExports(deps: Deps) {
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="${exportName(ctx, 'csv')}"`);
     res.setHeader('Cache-Control', 'no-store');
-    const out = stringify();
+    const out = csvStream();
     const hash = createHash('sha256');
     out.on('data', (chunk: Buffer) => hash.update(chunk));
     out.pipe(res, { end: false });

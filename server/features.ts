@@ -28,6 +28,10 @@ import { makeReminders } from './reminders/reminders.service.js';
 import { reminderRoutes } from './reminders/reminders.routes.js';
 import { makeJobs } from './jobs/index.js';
 import { makeSealer } from './audit/sealer.js';
+import { workSeal } from './jobs/seal.js';
+import type { QueueWorker } from './jobs/index.js';
+import { makeImportJobs } from './authorisations/import-jobs.service.js';
+import { importJobRoutes } from './authorisations/import-jobs.routes.js';
 import { makeRegisterFeature, registerFeatureRoutes } from './register/index.js';
 
 /** Every feature's services, built once per app. */
@@ -46,11 +50,13 @@ export function buildServices(deps: Deps) {
   // Procedure review-due reminders ride on the same scheduled sweep (30, 7 and 0 days before).
   // The audit trail is sealed after appends, and sealed and anchored outside the database with every sweep.
   const sealer = makeSealer(deps);
-  const jobs = makeJobs(deps, reminders, [() => procedures.reminders.run(null, [30, 7, 0]), () => sealer.run({ anchor: true })], sealer);
+  const importJobs = makeImportJobs(deps, authorisations.importer, auth.loadActor);
+  const workers: QueueWorker[] = [(b, work) => workSeal(b, deps.audit, sealer, work), importJobs.work];
+  const jobs = makeJobs(deps, reminders, [() => procedures.reminders.run(null, [30, 7, 0]), () => sealer.run({ anchor: true })], workers);
   const signoffs = makeSignoffsFeature(deps, signatures, usability);
   const practicals = makePracticalsFeature(deps, signatures, usability);
   const register = makeRegisterFeature(deps, { people, authorisations });
-  return { auth, people, sites, mail, signatures, engine: makeEngineService(), ...equipment, evidence, procedures, authorisations, reminders, jobs, signoffs, practicals, register };
+  return { auth, people, sites, mail, signatures, engine: makeEngineService(), ...equipment, evidence, procedures, authorisations, importJobs, reminders, jobs, signoffs, practicals, register };
 }
 export type Services = ReturnType<typeof buildServices>;
 
@@ -73,6 +79,7 @@ export function buildRouteTable(deps: Deps, s: Services): RouteDef[] {
     ...authorisationRoutes(s.authorisations, async () => {
       if (s.jobs.scheduled) await s.jobs.requestSweep(null).catch(() => undefined);
     }),
+    ...importJobRoutes(s.importJobs),
     ...reminderRoutes(s.reminders, s.jobs),
     ...registerFeatureRoutes(s.register),
   ];

@@ -3,8 +3,6 @@ import type { Deps } from '../deps.js';
 import type { Reminders, SweepResult } from '../reminders/reminders.service.js';
 import { AppError } from '../errors.js';
 import { QUEUES, QUEUE_OPTIONS, SWEEP_CRON } from './queues.js';
-import { workSeal } from './seal.js';
-import type { Sealer } from '../audit/sealer.js';
 import { JOBS_SCHEMA } from './install.js';
 
 export interface JobsOptions {
@@ -20,9 +18,12 @@ export interface JobsOptions {
  * Nothing runs until start(); stop() drains and closes.
  */
 /** `alongside` runs with every sweep: other once-only reminder work (procedure reviews due). */
-/** `sealer` seals the audit trail after appends (server/jobs/seal.ts). */
-export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Promise<unknown>)[] = [], sealer?: Sealer) {
-  let detachSeal: (() => void) | null = null;
+/** A feature's own worker on this process's queue; what it returns undoes its hooks when the queue stops. */
+export type QueueWorker = (b: PgBoss, work: PgBoss.WorkOptions) => Promise<() => void>;
+
+/** `workers`: the audit sealer (server/jobs/seal.ts), large imports. */
+export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Promise<unknown>)[] = [], workers: QueueWorker[] = []) {
+  const detach: (() => void)[] = [];
   let boss: PgBoss | null = null;
   let starting: Promise<void> | null = null;
   let scheduled = false;
@@ -64,7 +65,7 @@ export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Pro
     });
     await b.work(QUEUES.mail, work, async () => ({ ...(await deps.mailer.deliver()), pid: process.pid }));
     deps.mailer.useQueue((after) => (after ? b.sendAfter(QUEUES.mail, {}, { singletonKey: 'later' }, after) : b.send(QUEUES.mail, {}, { singletonKey: 'now' })));
-    if (sealer) detachSeal = await workSeal(b, deps.audit, sealer, work);
+    for (const w of workers) detach.push(await w(b, work));
     boss = b;
     scheduled = opts.schedule !== false;
   }
@@ -78,7 +79,7 @@ export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Pro
       await starting?.catch(() => undefined);
       const b = boss;
       boss = null;
-      detachSeal?.();
+      for (const undo of detach.splice(0)) undo();
       if (b) deps.mailer.useQueue(null);
       starting = null;
       if (b) await b.stop({ graceful: true, wait: true, timeout: 10_000 });

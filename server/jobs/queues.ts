@@ -6,6 +6,7 @@ export const QUEUES = {
   deliver: 'reminders-deliver',
   mail: 'mail-deliver',
   seal: 'audit-seal',
+  import: 'authorisations-import',
 } as const;
 
 export const QUEUE_OPTIONS: { name: string; options: PgBoss.Queue }[] = [
@@ -17,6 +18,8 @@ export const QUEUE_OPTIONS: { name: string; options: PgBoss.Queue }[] = [
   { name: QUEUES.mail, options: { name: QUEUES.mail, policy: 'short', retryLimit: 10, retryDelay: 30, retryBackoff: true, expireInSeconds: 15 * 60 } },
   // Sealing the audit trail after appends: one run waiting and one running is enough (the sealer takes turns by lock).
   { name: QUEUES.seal, options: { name: QUEUES.seal, policy: 'stately', retryLimit: 10, retryDelay: 10, retryBackoff: true, expireInSeconds: 15 * 60 } },
+  // A large CSV import: run once (a failure is recorded on the import's own row, and the manager starts again).
+  { name: QUEUES.import, options: { name: QUEUES.import, policy: 'standard', retryLimit: 0, expireInSeconds: 60 * 60 } },
 ];
 
 /** Every ten minutes: often enough that a lapse notice follows the lapse closely. */

@@ -186,4 +186,20 @@ export interface ImportReport {
   ok: boolean;
   rows: ImportRowReport[];
   written: { people: number; authorisations: number } | null;
+  /** A large file is written by the job queue: follow it at GET /authorisations/import/jobs/:id. */
+  job?: ImportJobView;
+}
+
+export type ImportJobStatus = 'queued' | 'running' | 'done' | 'failed';
+
+export interface ImportJobView {
+  id: string;
+  status: ImportJobStatus;
+  /** Rows in the file, and rows written so far (the rows become visible together when it is done). */
+  total: number;
+  done: number;
+  written: { people: number; authorisations: number } | null;
+  error: string | null;
+  createdAt: string;
+  finishedAt: string | null;
 }

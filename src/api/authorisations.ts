@@ -1,11 +1,11 @@
 import type { Page } from '@shared/schemas/common';
 import type { CertificateBody, ImportBody, PriorBody, ScopeInput } from '@shared/schemas/authorisations';
 import type {
-  AuthorisationDetail, AuthorisationSummary, CertificateView, DueView, EligibilityView, ImportReport, MineView, ScopeView, VerificationView,
+  AuthorisationDetail, AuthorisationSummary, CertificateView, DueView, EligibilityView, ImportJobView, ImportReport, MineView, ScopeView, VerificationView,
 } from '@shared/authorisations/views';
 import { api } from './client';
 
-export type { AuthorisationDetail, AuthorisationSummary, CertificateView, DueView, EligibilityView, ImportReport, MineView, ScopeView, VerificationView, ScopeInput };
+export type { AuthorisationDetail, AuthorisationSummary, CertificateView, DueView, EligibilityView, ImportJobView, ImportReport, MineView, ScopeView, VerificationView, ScopeInput };
 
 export type ManagerAction = 'suspend' | 'reinstate' | 'revoke';
 
@@ -22,6 +22,7 @@ export const authorisationsApi = {
   certificateUrl: (id: string, periodId?: string) => `/api/authorisations/${id}/certificate${periodId ? `?periodId=${periodId}` : ''}`,
   recordPrior: (body: PriorBody) => api.post<{ authorisationId: string; periodId: string }>('/authorisations/prior', body),
   importCsv: (body: ImportBody) => api.post<ImportReport>('/authorisations/import', body),
+  importJob: (id: string) => api.get<ImportJobView>(`/authorisations/import/jobs/${id}`),
   eligibility: (personId: string, scopeId?: string) => api.get<EligibilityView>(`/eligibility/${personId}${scopeId ? `/${scopeId}` : ''}`),
   certificates: (query: { holderId?: string; siteId?: string; status?: string; page: number; pageSize: number }) => api.get<Page<CertificateView>>('/certificates', { ...query }),
   submitCertificate: (body: Omit<CertificateBody, 'reference'> & { reference?: string }) => api.post<CertificateView>('/certificates', body),

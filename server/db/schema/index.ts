@@ -10,3 +10,4 @@ export * from './findings.js';
 export * from './register.js';
 export * from './rate-limit.js';
 export * from './audit.js';
+export * from './import-jobs.js';

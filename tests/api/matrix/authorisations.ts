@@ -13,6 +13,7 @@ export const rows: MatrixRows = {
   'GET /authorisations/due': [...everyone],
   'POST /authorisations/prior': ['manager'],
   'POST /authorisations/import': ['manager'],
+  'GET /authorisations/import/jobs/:id': ['manager'],
   'GET /authorisations': [...everyone],
   'GET /authorisations/:id': [...everyone],
   'GET /authorisations/:id/certificate': [...everyone],

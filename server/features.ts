@@ -50,9 +50,11 @@ export function buildServices(deps: Deps) {
   // Procedure review-due reminders ride on the same scheduled sweep (30, 7 and 0 days before).
   // The audit trail is sealed after appends, and sealed and anchored outside the database with every sweep.
   const sealer = makeSealer(deps);
+  // A sealing or anchoring failure is logged and tried again next sweep; it does not undo the sweep's reminders.
+  const anchored = () => sealer.run({ anchor: true }).catch((err: Error) => deps.log.error({ err }, `audit: sealing with the sweep failed: ${err.message}`));
   const importJobs = makeImportJobs(deps, authorisations.importer, auth.loadActor);
-  const workers: QueueWorker[] = [(b, work) => workSeal(b, deps.audit, sealer, work), importJobs.work];
-  const jobs = makeJobs(deps, reminders, [() => procedures.reminders.run(null, [30, 7, 0]), () => sealer.run({ anchor: true })], workers);
+  const workers: QueueWorker[] = [(b, work) => workSeal(b, deps, sealer, work), importJobs.work];
+  const jobs = makeJobs(deps, reminders, [() => procedures.reminders.run(null, [30, 7, 0]), anchored], workers);
   const signoffs = makeSignoffsFeature(deps, signatures, usability);
   const practicals = makePracticalsFeature(deps, signatures, usability);
   const register = makeRegisterFeature(deps, { people, authorisations });

@@ -64,6 +64,13 @@ export function persistentSecret(dataRoot: string): string {
 export function persistentAuditKey(dataRoot: string): string {
   const file = path.join(dataRoot, 'audit-key');
   mkdirSync(dataRoot, { recursive: true });
-  if (!existsSync(file)) writeFileSync(file, randomBytes(32).toString('hex'), { mode: 0o600, flag: 'wx' });
+  // 'wx': two first starts at once keep the one key written first.
+  if (!existsSync(file)) {
+    try {
+      writeFileSync(file, randomBytes(32).toString('hex'), { mode: 0o600, flag: 'wx' });
+    } catch (err) {
+      if ((err as NodeJS.ErrnoException).code !== 'EEXIST') throw err;
+    }
+  }
   return readFileSync(file, 'utf8').trim();
 }

@@ -52,7 +52,7 @@ export function makeImportJobs(deps: Deps, importer: ImportService, loadActor: L
   async function start(actor: Actor, signer: Signer, csv: string, total: number): Promise<ImportJobView> {
     const job = await insertImportJob(db, { actorId: actor.id, printedName: signer.printedName, csv, status: 'queued', total, createdAt: clock.now() });
     if (send) await send(job.id);
-    else void run(job.id).catch((err: Error) => console.error(`[import] job ${job.id}: ${err.message}`));
+    else void run(job.id).catch((err: Error) => deps.log.error({ err }, `import job ${job.id}: ${err.message}`));
     return present(job);
   }
 

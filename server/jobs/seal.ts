@@ -1,5 +1,5 @@
 import type PgBoss from 'pg-boss';
-import type { Audit } from '../audit/audit.service.js';
+import type { Deps } from '../deps.js';
 import type { Sealer } from '../audit/sealer.js';
 import { QUEUES } from './queues.js';
 
@@ -12,22 +12,26 @@ const RETRY_SECONDS = 5;
  * The seal worker on this process's queue, and the request after appends. The queue keeps at most one
  * run waiting (policy 'stately'), and the sealer's advisory lock lets one seal at a time across processes.
  */
-export async function workSeal(b: PgBoss, audit: Audit, sealer: Sealer, work: PgBoss.WorkOptions): Promise<() => void> {
+export async function workSeal(b: PgBoss, { audit, log }: Deps, sealer: Sealer, work: PgBoss.WorkOptions): Promise<() => void> {
   await b.work(QUEUES.seal, work, async () => {
     const result = await sealer.run();
     if (!result.caughtUp) await b.sendAfter(QUEUES.seal, {}, {}, RETRY_SECONDS);
     return { ...result, pid: process.pid };
   });
+  // Whatever was written while no queue ran here (the seed, a restart) is sealed without waiting for a write.
+  await b.send(QUEUES.seal, {});
   let waiting = false;
+  let stopped = false;
   audit.onAppended = () => {
     if (waiting) return;
     waiting = true;
     setTimeout(() => {
       waiting = false;
-      b.sendAfter(QUEUES.seal, {}, {}, AFTER_APPEND_SECONDS).catch((err: Error) => console.error(`[audit] could not ask for a seal run: ${err.message}`));
+      if (!stopped) b.sendAfter(QUEUES.seal, {}, {}, AFTER_APPEND_SECONDS).catch((err: Error) => log.error({ err }, `audit: could not ask for a seal run: ${err.message}`));
     }, 100).unref();
   };
   return () => {
+    stopped = true;
     audit.onAppended = null;
   };
 }

@@ -53,11 +53,13 @@ export function makeDelivery(db: Database, clock: Clock, transport: MailTranspor
   }
 
   async function record(results: { row: outbox.OutboxRow; outcome: outbox.Outcome }[], out: DeliveryResult) {
+    if (!results.length) return;
     await db.transaction(async (tx) => {
       const now = clock.now();
+      const recorded = await outbox.recordOutcomes(tx, results, now);
       const told: Delivered[] = [];
       for (const { row, outcome } of results) {
-        if (!(await outbox.recordOutcome(tx, row, outcome, now))) continue;
+        if (!recorded.has(row.id)) continue;
         out[outcome.status === 'sent' ? 'sent' : outcome.status === 'failed' ? 'failed' : 'retrying']++;
         told.push({
           id: row.id, key: row.dedupeKey, status: outcome.status, attempts: row.attempts, at: now,
@@ -75,11 +77,10 @@ export function makeDelivery(db: Database, clock: Clock, transport: MailTranspor
     for (;;) {
       const now = clock.now();
       const claimed = await outbox.claimDue(db, now, new Date(now.getTime() - STALE_SENDING_MS), BATCH);
-      for (let i = 0; i < claimed.length; i += IN_FLIGHT) {
-        const part = claimed.slice(i, i + IN_FLIGHT);
-        const outcomes = await Promise.all(part.map(transmit));
-        await record(part.map((row, j) => ({ row, outcome: outcomes[j] })), out);
-      }
+      const outcomes: outbox.Outcome[] = [];
+      // A few at a time to the transport, with no transaction open; then the batch's outcomes in one write.
+      for (let i = 0; i < claimed.length; i += IN_FLIGHT) outcomes.push(...(await Promise.all(claimed.slice(i, i + IN_FLIGHT).map(transmit))));
+      await record(claimed.map((row, j) => ({ row, outcome: outcomes[j] })), out);
       if (claimed.length < BATCH) return;
     }
   }

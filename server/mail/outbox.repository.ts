@@ -31,14 +31,22 @@ export type Outcome =
   | { status: 'sent'; fileName: string | null }
   | { status: 'waiting' | 'failed'; error: string; nextAttemptAt: Date };
 
-/** Records what became of a claimed message; false when the claim was taken over meanwhile. */
-export async function recordOutcome(db: Executor, row: OutboxRow, outcome: Outcome, now: Date): Promise<boolean> {
-  const set = outcome.status === 'sent'
-    ? { status: 'sent', fileName: outcome.fileName, sentAt: now, error: null }
-    : { status: outcome.status, error: outcome.error.slice(0, 1000), nextAttemptAt: outcome.nextAttemptAt };
-  const done = await db.update(mailLog).set(set)
-    .where(and(eq(mailLog.id, row.id), eq(mailLog.status, 'sending'), eq(mailLog.attempts, row.attempts))).returning({ id: mailLog.id });
-  return done.length === 1;
+/**
+ * Records what became of claimed messages, in one statement; returns the ids recorded. A message whose
+ * claim was taken over meanwhile (its attempt count moved on) is left to the newer claim.
+ */
+export async function recordOutcomes(db: Executor, done: { row: OutboxRow; outcome: Outcome }[], now: Date): Promise<Set<string>> {
+  if (!done.length) return new Set();
+  const rows = done.map(({ row, outcome: o }) => ({
+    id: row.id, attempts: row.attempts, status: o.status,
+    ...(o.status === 'sent' ? { file_name: o.fileName, sent_at: now.toISOString() } : { error: o.error.slice(0, 1000), next_at: o.nextAttemptAt.toISOString() }),
+  }));
+  const r = (await db.execute(sql`update mail_log m set status = x.status, file_name = coalesce(x.file_name, m.file_name), sent_at = x.sent_at,
+      error = x.error, next_attempt_at = coalesce(x.next_at, m.next_attempt_at)
+    from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb) as x(id uuid, attempts int, status text, file_name text, sent_at timestamptz, error text, next_at timestamptz)
+    where m.id = x.id and m.status = 'sending' and m.attempts = x.attempts
+    returning m.id`)) as unknown as { rows: { id: string }[] };
+  return new Set(r.rows.map((row) => row.id));
 }
 
 /** Withdraws messages not yet being sent (their cause went away); returns how many. */

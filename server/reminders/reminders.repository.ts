@@ -10,11 +10,11 @@ export type SendRow = typeof reminderSends.$inferSelect;
  * matches the period's end less the offset) are cancelled; planning records the new end's own.
  */
 export async function cancelMoved(db: Executor): Promise<string[]> {
-  const r = await db.execute<{ mail_id: string | null }>(sql`update reminder_sends s set status = 'cancelled'
+  const r = (await db.execute(sql`update reminder_sends s set status = 'cancelled'
     from authorisation_periods p
     where s.period_id = p.id and s.status = 'pending' and s.offset_days > 0
       and s.due_at <> p.ends_at - make_interval(days => s.offset_days)
-    returning s.mail_id`);
+    returning s.mail_id`)) as unknown as { rows: { mail_id: string | null }[] };
   // Their messages already in the outbox are withdrawn by the caller.
   return r.rows.flatMap((row) => (row.mail_id ? [row.mail_id] : []));
 }

@@ -22,7 +22,7 @@ beforeAll(async () => {
 const row = async (to: string) => (await t.ownerQuery(`select * from mail_log where to_address = $1`, [to])).rows;
 const arrived = (to: string) => peer.received.filter((m) => m.to.includes(to));
 /** Invites a new person through `agent` (this app's by default); returns their address. */
-async function invite(agent = manager) {
+async function invite(agent: ReturnType<TestApp['agent']> = manager) {
   const email = `smtp-${++n}@example.test`;
   expect((await agent.post('/api/people').send({ email, name: `Sam Peer ${n}`, siteId: cleveland, roles: ['technician'] })).status).toBe(201);
   return email;

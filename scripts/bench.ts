@@ -40,7 +40,7 @@ async function main() {
     const clock = new SettableClock('2026-06-01T08:00:00Z');
     const config = loadConfig({ DATABASE_URL: url, SESSION_SECRET: 'bench-secret-'.padEnd(40, 'x'), AUDIT_KEY: 'b0'.repeat(32), AUDIT_ANCHOR_DIR: path.join(parent, 'anchors'), SIGNIN_RATE_LIMIT: '100000', MAIL_OUTBOX_DIR: path.join(parent, 'outbox'), STATIC_DIR: path.join(parent, 'none') });
     const built = createApp({ config, clock });
-    const ctx: BenchContext = { ...built, clock, url, http: request.agent(built.app), analyze: () => analyzeAsOwner(ownerUrl) };
+    const ctx: BenchContext = { ...built, clock, url, http: request.agent(built.app).set('Origin', new URL(built.deps.config.publicUrl).origin), analyze: () => analyzeAsOwner(ownerUrl) };
     const rows: string[][] = [];
     for (const suite of BENCH_SUITES) {
       const t0 = performance.now();

@@ -6,6 +6,7 @@ import type pg from 'pg';
 import type { Config } from './config.js';
 import { systemClock, type Clock } from './clock.js';
 import { createDatabase, createPool } from './db/client.js';
+import { watchPool } from './db/outage.js';
 import { createMailer, type MailTransport } from './mail/mailer.js';
 import { makeAudit } from './audit/audit.service.js';
 import type { Deps } from './deps.js';
@@ -34,10 +35,11 @@ export interface AppOptions {
 export function createApp(opts: AppOptions) {
   const { config } = opts;
   const clock = opts.clock ?? systemClock;
-  const pool = opts.pool ?? createPool(config.databaseUrl);
+  const log = opts.logger ?? createLogger(config.log);
+  // A pool given by the caller is watched too: a dropped idle connection must not end the process.
+  const pool = watchPool(opts.pool ?? createPool(config.databaseUrl, 10, log), log);
   const db = createDatabase(pool);
   const mailer = createMailer(db, clock, config.mail, opts.mailTransport);
-  const log = opts.logger ?? createLogger(config.log);
   const deps: Deps = { db, pool, clock, config, mailer, audit: makeAudit(clock), log };
   const services = buildServices(deps);
   const routeTable = buildRouteTable(deps, services);
@@ -66,14 +68,15 @@ export function createApp(opts: AppOptions) {
   const api = Router();
   api.use(express.json({ limit: '256kb' }));
   api.use(originCheck(config.allowedOrigins));
-  api.use(sessionMiddleware(pool, config));
+  mountRoutes(api, routeTable.filter((d) => d.noSession));
+  api.use(sessionMiddleware(pool, config, log));
   // Password attempts per address, counted in PostgreSQL so the limit holds across server processes.
   const limits = passwordAttemptLimits(deps);
   api.post('/session', limits.signIn);
   api.post('/password/forgot', limits.signIn);
   api.use(actorMiddleware(services.auth));
   api.use(limits.passwords);
-  mountRoutes(api, routeTable);
+  mountRoutes(api, routeTable.filter((d) => !d.noSession));
   api.use(notFoundApi);
   app.use('/api', api);
 

@@ -33,3 +33,9 @@ process.on('SIGTERM', () => void shutdown('SIGTERM'));
 process.on('unhandledRejection', (reason) => {
   log.error({ err: reason }, 'unhandled rejection');
 });
+// Last resort, not a way to carry on: the state is unknown, so log it and exit non-zero; npm start (or
+// systemd, see the README) starts a fresh process.
+process.on('uncaughtException', (err) => {
+  log.fatal({ err }, `uncaught exception, exiting: ${err.message}`);
+  process.exit(1);
+});

@@ -2,7 +2,7 @@ import type { Request, Response, Router } from 'express';
 import type { ZodType } from 'zod';
 import { z } from 'zod';
 import '../shared/schemas/messages.js';
-import type { Action, Actor, AppAbility, SubjectName } from '../shared/abilities.js';
+import { defineAbilityFor, type Action, type Actor, type AppAbility, type SubjectName } from '../shared/abilities.js';
 import { AppError, forbidden, unauthorized } from './errors.js';
 
 /** Who may call a route: anyone, anyone signed in, or those whose ability allows [action, subject]. */
@@ -30,7 +30,15 @@ export interface RouteDef {
   before?: (req: Request, res: Response) => Promise<void>;
   handler: (ctx: RouteContext) => Promise<unknown>;
   status?: number;
+  /** Answered before the session cookie is looked up (probes: they must not need the database). Public only. */
+  noSession?: boolean;
 }
+
+/** A handler's answer with a status of its own (e.g. 503 from the health check); `def.status` is the usual one. */
+export class WithStatus {
+  constructor(readonly status: number, readonly body: unknown) {}
+}
+export const withStatus = (status: number, body: unknown) => new WithStatus(status, body);
 
 /** Typed helper so handlers see the inferred body, query and params. */
 export function route<B extends ZodType = ZodType<undefined>, Q extends ZodType = ZodType<undefined>, P extends ZodType = ZodType<undefined>>(
@@ -74,8 +82,8 @@ export function checkAccess(access: Access, actor: Actor | null, ability: AppAbi
 export function mountRoutes(router: Router, table: readonly RouteDef[]): void {
   for (const def of table) {
     router[def.method](def.path, async (req: Request, res: Response) => {
-      const actor = res.locals.actor as Actor | null;
-      const ability = res.locals.ability as AppAbility;
+      const actor = (res.locals.actor ?? null) as Actor | null;
+      const ability = (res.locals.ability ?? defineAbilityFor(null)) as AppAbility;
       checkAccess(def.access, actor, ability);
       if (def.before) await def.before(req, res);
       const ctx: RouteContext = {
@@ -89,7 +97,8 @@ export function mountRoutes(router: Router, table: readonly RouteDef[]): void {
       };
       const result = await def.handler(ctx);
       if (res.headersSent) return;
-      if (result === undefined) res.status(def.status ?? 204).end();
+      if (result instanceof WithStatus) res.status(result.status).json(result.body);
+      else if (result === undefined) res.status(def.status ?? 204).end();
       else res.status(def.status ?? 200).json(result);
     });
   }

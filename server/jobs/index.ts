@@ -4,6 +4,8 @@ import type { Reminders, SweepResult } from '../reminders/reminders.service.js';
 import { AppError } from '../errors.js';
 import { QUEUES, QUEUE_OPTIONS, SWEEP_CRON } from './queues.js';
 import { JOBS_SCHEMA } from './install.js';
+import { POOL_BOUNDS } from '../db/client.js';
+import { isDatabaseUnavailable, outageReporter } from '../db/outage.js';
 
 export interface JobsOptions {
   /** How often an idle worker looks for work (pg-boss allows 0.5 s at least). */
@@ -35,8 +37,10 @@ export function makeJobs(deps: Deps, reminders: Reminders, alongside: (() => Pro
   }
 
   async function boot(opts: JobsOptions) {
-    const b = new PgBoss({ connectionString: deps.config.databaseUrl, schema: JOBS_SCHEMA, max: 4, application_name: 'breakover-jobs', migrate: false, schedule: opts.schedule !== false });
-    b.on('error', (err) => deps.log.error({ err }, `job queue: ${err.message}`));
+    const b = new PgBoss({ ...POOL_BOUNDS, connectionString: deps.config.databaseUrl, schema: JOBS_SCHEMA, max: 4, application_name: 'breakover-jobs', migrate: false, schedule: opts.schedule !== false });
+    // Every worker's poll fails while the database is away: one warning per outage; pg-boss retries by itself.
+    const outage = outageReporter(deps.log, 'job queue');
+    b.on('error', (err) => (isDatabaseUnavailable(err) ? outage.lost(err) : deps.log.error({ err }, `job queue: ${err.message}`)));
     await b.start().catch((err: Error) => {
       throw new Error(`the job queue could not start (${err.message}); the migrations, run as the database owner, set it up`);
     });

@@ -5,6 +5,7 @@ import type pg from 'pg';
 import type { Config } from '../config.js';
 import { defineAbilityFor } from '../../shared/abilities.js';
 import type { AuthService } from '../auth/auth.service.js';
+import type { Logger } from '../logging.js';
 
 declare module 'express-session' {
   interface SessionData {
@@ -12,10 +13,13 @@ declare module 'express-session' {
   }
 }
 
-export function sessionMiddleware(pool: pg.Pool, config: Config) {
+export function sessionMiddleware(pool: pg.Pool, config: Config, log?: Logger) {
   const Store = connectPgSimple(session);
+  // A failed prune (the database away) is logged and tried again at the next interval; a failed read
+  // reaches the error handler (503), so a signed-in person is not signed out by an outage.
+  const errorLog = (...args: unknown[]) => log?.warn({ err: args.find((a) => a instanceof Error) }, `session store: ${args.filter((a) => typeof a === 'string').join(' ')}`);
   return session({
-    store: new Store({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+    store: new Store({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60, errorLog }),
     name: 'breakover.sid',
     secret: config.sessionSecret,
     resave: false,

@@ -4,6 +4,7 @@ const everyone = ['technician', 'assessor', 'manager', 'auditor', 'admin'] as co
 
 export const rows: MatrixRows = {
   'GET /health': 'public',
+  'GET /live': 'public',
   'POST /session': 'public',
   'GET /session': 'signed-in',
   'DELETE /session': 'public',

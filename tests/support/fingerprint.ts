@@ -11,16 +11,21 @@ const SKIPPED_COLUMNS: Record<string, string[]> = {
 
 let query: string | null = null;
 
-/** One checksum over every business table (rows and values), read as the owner. Equal before and after = nothing written. */
-export async function fingerprint(t: TestApp): Promise<Record<string, string>> {
+type Run = (text: string) => Promise<{ rows: unknown[] }>;
+
+/**
+ * One checksum over every business table (rows and values), read as the owner. Equal before and after =
+ * nothing written. `run` may be a kept owner connection's query (many fingerprints in one test).
+ */
+export async function fingerprint(t: TestApp, run: Run = (q) => t.ownerQuery(q)): Promise<Record<string, string>> {
   if (!query) {
-    const { rows } = await t.ownerQuery(`select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' order by 1`);
+    const { rows } = await run(`select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' order by 1`);
     query = (rows as { table_name: string }[]).map((r) => r.table_name).filter((n) => !SKIPPED_TABLES.includes(n)).map((n) => {
       const drop = (SKIPPED_COLUMNS[n] ?? []).map((c) => ` - '${c}'`).join('');
       return `select '${n}' as t, count(*)::text || ':' || coalesce(md5(string_agg((to_jsonb(x)${drop})::text, '|' order by (to_jsonb(x)${drop})::text)), '') as f from "${n}" x`;
     }).join(' union all ');
   }
-  const { rows } = await t.ownerQuery(query);
+  const { rows } = await run(query);
   return Object.fromEntries((rows as { t: string; f: string }[]).map((r) => [r.t, r.f]));
 }
 

@@ -1,6 +1,6 @@
 #!/usr/bin/env node
 // Needs nothing but Node: installs the dependencies when they are missing or stale, then hands over
-// to the TypeScript script for the command (start, test, dev, bench).
+// to the TypeScript script for the command (start, test, dev, bench, backup, restore).
 import { spawnSync, spawn } from 'node:child_process';
 import { existsSync, mkdirSync, rmSync, statSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
@@ -8,7 +8,7 @@ import path from 'node:path';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const command = process.argv[2];
-const known = ['start', 'test', 'dev', 'bench'];
+const known = ['start', 'test', 'dev', 'bench', 'backup', 'restore'];
 if (!known.includes(command)) {
   console.error(`usage: node scripts/bootstrap.mjs <${known.join('|')}>`);
   process.exit(2);

@@ -1,4 +1,5 @@
-// npm start: database, migrations, demo data, client build, then the server. Stops all of it on Ctrl-C.
+// npm start: database, migrations, demo data, client build, then the server. Keeps the server and the
+// private cluster running (each started again when it stops unexpectedly); stops all of it on Ctrl-C.
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -11,6 +12,7 @@ import { DEMO_PASSWORD, DEMO_SIGN_INS } from '../server/seed/demo-people.js';
 import { localDatabase, persistentAuditKey, persistentSecret } from './lib/local-db.js';
 import { buildClientIfStale } from './lib/build.js';
 import { portOrFree } from './lib/ports.js';
+import { superviseProcess, watchCluster } from './lib/supervise.js';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const dataRoot = path.resolve(process.env.BREAKOVER_DATA_DIR ?? path.join(root, '.data'));
@@ -42,26 +44,44 @@ async function main() {
     MAIL_OUTBOX_DIR: process.env.MAIL_OUTBOX_DIR ?? path.join(root, 'mail-outbox'),
     STATIC_DIR: path.join(root, 'dist'),
   };
-  const server = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server', 'index.ts')], { cwd: root, env, stdio: ['ignore', 'pipe', 'inherit'] });
-  server.stdout.on('data', (chunk: Buffer) => {
-    process.stdout.write(chunk);
-    if (chunk.toString().includes('listening on')) announce(publicUrl);
-  });
-
   let stopping = false;
-  const stop = (signal: NodeJS.Signals) => {
+  // The server writes straight to our terminal; whether it is up is asked of its liveness route.
+  const server = superviseProcess(
+    () => spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server', 'index.ts')], { cwd: root, env, stdio: ['ignore', 'inherit', 'inherit'] }),
+    log,
+  );
+  const stopWatching = db.cluster ? watchCluster(db.cluster, log) : () => undefined;
+  const liveUrl = `http://${probeHost(process.env.HOST)}:${port}/api/live`;
+  void waitUntilLive(liveUrl, () => stopping).then((up) => up && announce(publicUrl));
+
+  const stop = async (signal: NodeJS.Signals) => {
     if (stopping) return;
     stopping = true;
     log(`${signal}: stopping the server and the database`);
-    server.kill('SIGTERM');
-  };
-  process.on('SIGINT', () => stop('SIGINT'));
-  process.on('SIGTERM', () => stop('SIGTERM'));
-  server.on('exit', (code) => {
+    stopWatching();
+    await server.stop('SIGTERM');
     db.stop();
     log('stopped');
-    process.exit(stopping ? 0 : (code ?? 1));
-  });
+    process.exit(0);
+  };
+  process.on('SIGINT', () => void stop('SIGINT'));
+  process.on('SIGTERM', () => void stop('SIGTERM'));
+}
+
+/** Where to ask a server listening on HOST (all addresses, or one of them). */
+function probeHost(host = '127.0.0.1'): string {
+  if (host === '0.0.0.0' || host === '::' || host === '') return '127.0.0.1';
+  return host.includes(':') ? `[${host}]` : host;
+}
+
+/** Polls the liveness route until it answers; false when stopping came first. */
+async function waitUntilLive(url: string, stopping: () => boolean): Promise<boolean> {
+  while (!stopping()) {
+    const ok = await fetch(url, { signal: AbortSignal.timeout(2_000) }).then((r) => r.ok, () => false);
+    if (ok) return true;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  return false;
 }
 
 function announce(url: string) {

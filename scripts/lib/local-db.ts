@@ -11,6 +11,8 @@ export interface LocalDb {
   ownerUrl: string;
   stop: () => void;
   where: string;
+  /** The private cluster, for npm start to keep running; none for an external database. */
+  cluster?: { isRunning: () => boolean; start: () => Promise<void> };
 }
 
 const DEFAULT_PG_PORT = 54329;
@@ -37,6 +39,7 @@ export async function localDatabase(root: string, dataRoot: string, log: (s: str
     ownerUrl: `postgres://postgres@127.0.0.1:${port}/breakover`,
     stop: () => stopCluster(bin, dir),
     where: `${dir} (port ${port})`,
+    cluster: { isRunning: () => isRunning(dir), start: () => startCluster(bin, dir, port) },
   };
 }
 

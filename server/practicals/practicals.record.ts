@@ -9,6 +9,7 @@ import { checklistOf, holdPointsOf } from '../records/checklist.js';
 import { buildEntry } from '../records/entry.js';
 import * as repo from './practicals.repository.js';
 import { recordablePractical } from './practicals.access.js';
+import { refuseUnlessStepOpen } from './practicals.order.js';
 import { practicalView } from './practicals.views.js';
 
 /** What the assessor records at the bench, each entry saved as it is made. */
@@ -30,7 +31,8 @@ export function makePracticalRecording(deps: Deps, signatures: Signatures, usabi
     });
     await db.transaction(async (tx) => {
       const locked = await recordablePractical(tx, ability, id, true);
-      await repo.saveEntry(tx, id, itemId, { ...fields, recordedAt: now });
+      await refuseUnlessStepOpen(tx, id, p.versionId, item.stepKey);
+      await repo.saveEntry(tx, id, itemId, { ...fields, recordedAt: now, seq: await repo.nextSeq(tx, id) });
       const instrumentIds = fields.instrumentId && !locked.instrumentIds.includes(fields.instrumentId) ? [...locked.instrumentIds, fields.instrumentId] : locked.instrumentIds;
       await repo.updatePractical(tx, id, { instrumentIds, updatedAt: now });
       await audit(tx, { actorId: actor.id, action: 'practical.entry_saved', entity: 'practical', entityId: id, newValues: { itemId, ...fields, recordedAt: undefined } });
@@ -54,7 +56,7 @@ export function makePracticalRecording(deps: Deps, signatures: Signatures, usabi
         const n = holds.indexOf(skipped) + 1;
         throw conflict(`Hold point ${n} comes first: "${skipped.text}" must be witnessed before this one.`, { stepKey: `hold point ${n} ("${skipped.text}") is not witnessed yet` });
       }
-      await repo.insertHoldPoint(tx, { practicalId: id, stepKey, position: hold.position, witnessedAt: now, witnessedBy: actor.id, note });
+      await repo.insertHoldPoint(tx, { practicalId: id, stepKey, position: hold.position, witnessedAt: now, witnessedBy: actor.id, note, seq: await repo.nextSeq(tx, id) });
       await repo.updatePractical(tx, id, { updatedAt: now });
       await audit(tx, { actorId: actor.id, action: 'practical.hold_point_witnessed', entity: 'practical', entityId: id, newValues: { stepKey, position: hold.position, note } });
     });

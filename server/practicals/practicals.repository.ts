@@ -1,4 +1,4 @@
-import { and, asc, eq, ilike, inArray, ne, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq, ilike, inArray, max, ne, or, sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../db/client.js';
 import { benches, practicalEntries, practicalHoldPoints, practicals, scopes, userRoles, users } from '../db/schema/index.js';
 import type { EntryFields, EntryRow } from '../records/records.repository.js';
@@ -27,8 +27,17 @@ export async function entriesOf(db: Executor, practicalId: string): Promise<Entr
   return db.select().from(practicalEntries).where(eq(practicalEntries.practicalId, practicalId));
 }
 
-export async function saveEntry(db: Executor, practicalId: string, itemId: string, fields: EntryFields) {
+export async function saveEntry(db: Executor, practicalId: string, itemId: string, fields: EntryFields & { seq: number }) {
   await db.insert(practicalEntries).values({ practicalId, itemId, ...fields }).onConflictDoUpdate({ target: [practicalEntries.practicalId, practicalEntries.itemId], set: fields });
+}
+
+/** The next number in the order things were done at the bench (call with the practical locked). */
+export async function nextSeq(db: Executor, practicalId: string): Promise<number> {
+  const [[e], [h]] = await Promise.all([
+    db.select({ n: max(practicalEntries.seq) }).from(practicalEntries).where(eq(practicalEntries.practicalId, practicalId)),
+    db.select({ n: max(practicalHoldPoints.seq) }).from(practicalHoldPoints).where(eq(practicalHoldPoints.practicalId, practicalId)),
+  ]);
+  return Math.max(e?.n ?? 0, h?.n ?? 0) + 1;
 }
 
 export async function witnessedOf(db: Executor, practicalId: string): Promise<HoldPointRow[]> {
@@ -43,13 +52,13 @@ export async function insertHoldPoint(db: Executor, row: typeof practicalHoldPoi
 export async function copyRecord(db: Executor, fromId: string, toId: string) {
   await db.execute(sql`
     insert into practical_entries (practical_id, item_id, kind, checked, text, evidence_id, value, did_not_trip, unit, instrument_id,
-      expected, tolerance, verdict, judged_by, rule_text, source, note, recorded_at, recorded_by)
+      expected, tolerance, verdict, judged_by, rule_text, source, note, recorded_at, recorded_by, seq)
     select ${toId}, item_id, kind, checked, text, evidence_id, value, did_not_trip, unit, instrument_id,
-      expected, tolerance, verdict, judged_by, rule_text, source, note, recorded_at, recorded_by
+      expected, tolerance, verdict, judged_by, rule_text, source, note, recorded_at, recorded_by, seq
     from practical_entries where practical_id = ${fromId}`);
   await db.execute(sql`
-    insert into practical_hold_points (practical_id, step_key, position, witnessed_at, witnessed_by, note)
-    select ${toId}, step_key, position, witnessed_at, witnessed_by, note from practical_hold_points where practical_id = ${fromId} order by position`);
+    insert into practical_hold_points (practical_id, step_key, position, witnessed_at, witnessed_by, note, seq)
+    select ${toId}, step_key, position, witnessed_at, witnessed_by, note, seq from practical_hold_points where practical_id = ${fromId} order by position`);
 }
 
 export async function correctionOf(db: Executor, id: string) {

@@ -4,7 +4,9 @@ import type { Expectations } from '../../shared/practicals/expectations.js';
 import type { HoldPointView, PracticalView } from '../../shared/practicals/views.js';
 import { findProcedure, findVersion } from '../procedures/procedures.repository.js';
 import { presentSignature, type Signatures } from '../signatures/signatures.service.js';
-import { checklistOf, holdPointsOf } from '../records/checklist.js';
+import { checklistOf } from '../records/checklist.js';
+import { loadSteps } from '../procedures/content.repository.js';
+import { presentSteps } from './practicals.steps.js';
 import { presentItems } from '../records/items.present.js';
 import { instrumentLabels, peopleNames } from '../records/records.repository.js';
 import * as repo from './practicals.repository.js';
@@ -15,7 +17,7 @@ const iso = (d: Date | null) => d?.toISOString() ?? null;
 export async function practicalView(db: Executor, signatures: Signatures, p: repo.PracticalRow): Promise<PracticalView> {
   const [procedure, version, checklist, entries, steps, witnessed, signed, bench, scope, correction, corrected, technician] = await Promise.all([
     findProcedure(db, p.procedureId), findVersion(db, p.procedureId, p.versionId), checklistOf(db, p.versionId, p.checklistId),
-    repo.entriesOf(db, p.id), holdPointsOf(db, p.versionId), repo.witnessedOf(db, p.id), signatures.list(db, 'practical', [p.id]),
+    repo.entriesOf(db, p.id), loadSteps(db, p.versionId), repo.witnessedOf(db, p.id), signatures.list(db, 'practical', [p.id]),
     repo.benchOf(db, p.benchId), p.scopeId ? repo.scopeBrief(db, p.scopeId) : undefined, repo.correctionOf(db, p.id),
     p.correctsId ? repo.findPractical(db, p.correctsId) : undefined, repo.personBrief(db, p.technicianId),
   ]);
@@ -24,9 +26,10 @@ export async function practicalView(db: Executor, signatures: Signatures, p: rep
   const expectations = p.expectations as Expectations;
   const { items, progress } = presentItems(checklist, entries, expectations.quantities, { names, instruments });
   const byKey = new Map(witnessed.map((w) => [w.stepKey, w]));
-  const holdPoints: HoldPointView[] = steps.map((s, i) => {
+  const holds = steps.map((s, position) => ({ ...s, position })).filter((s) => s.holdPoint);
+  const holdPoints: HoldPointView[] = holds.map((s, i) => {
     const w = byKey.get(s.key);
-    return { stepKey: s.key, position: s.position, number: i + 1, text: s.text, caution: s.caution, witnessed: w ? { at: w.witnessedAt.toISOString(), byName: names.get(w.witnessedBy) ?? 'unknown person', note: w.note } : null };
+    return { stepKey: s.key, position: s.position, number: i + 1, text: s.text, caution: s.caution, witnessed: w ? { at: w.witnessedAt.toISOString(), byName: names.get(w.witnessedBy) ?? 'unknown person', note: w.note, seq: w.seq } : null };
   });
   return {
     id: p.id, siteId: p.siteId, status: p.status as PracticalStatus,
@@ -36,7 +39,7 @@ export async function practicalView(db: Executor, signatures: Signatures, p: rep
     scope: scope ?? null,
     procedure: { id: procedure!.id, code: procedure!.code, versionId: version!.id, number: version!.number, title: version!.title, inForce: version!.status === 'published' },
     checklist: { id: checklist.id, title: checklist.title, kind: checklist.kind },
-    circuit: p.circuit as Circuit, expectations, items, progress, holdPoints,
+    circuit: p.circuit as Circuit, expectations, items, progress, holdPoints, steps: presentSteps(steps, new Set(byKey.keys()), items),
     instruments: p.instrumentIds.map((id) => ({ id, label: instruments.get(id) ?? 'unknown instrument' })),
     signatures: signed.map(presentSignature),
     outcome: p.outcome as Outcome | null, outcomeComment: p.outcomeComment,

@@ -16,6 +16,8 @@ export interface StoredItem {
   guidance: string | null;
   unit: string | null;
   rule: AcceptanceRule | null;
+  /** The step of the same version the item belongs to. */
+  stepKey: string | null;
 }
 export interface StoredChecklist {
   id?: string;
@@ -49,7 +51,7 @@ export async function loadChecklists(db: Executor, versionId: string): Promise<S
   return lists.map((l) => ({
     id: l.id, key: l.key, kind: l.kind, title: l.title,
     items: items.filter((i) => i.checklistId === l.id).map((i) => ({
-      id: i.id, key: i.key, kind: i.kind, prompt: i.prompt, guidance: i.guidance, unit: i.unit, rule: (i.rule as AcceptanceRule | null) ?? null,
+      id: i.id, key: i.key, kind: i.kind, prompt: i.prompt, guidance: i.guidance, unit: i.unit, rule: (i.rule as AcceptanceRule | null) ?? null, stepKey: i.stepKey,
     })),
   }));
 }
@@ -74,7 +76,7 @@ export async function replaceContent(tx: Executor, versionId: string, content: V
   const idByKey = new Map(lists.map((l) => [l.key, l.id]));
   const rows = content.checklists.flatMap((c) =>
     c.items.map((i, position) => ({
-      checklistId: idByKey.get(c.key)!, position, key: i.key, kind: i.kind, prompt: i.prompt, guidance: i.guidance, unit: i.unit, rule: i.rule,
+      checklistId: idByKey.get(c.key)!, position, key: i.key, kind: i.kind, prompt: i.prompt, guidance: i.guidance, unit: i.unit, rule: i.rule, stepKey: i.stepKey,
     })),
   );
   if (rows.length) await tx.insert(checklistItems).values(rows);

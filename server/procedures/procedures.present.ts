@@ -22,7 +22,7 @@ export function presentChecklists(lists: StoredChecklist[]): ChecklistView[] {
   return lists.map((c) => ({
     id: c.id ?? null, key: c.key, kind: c.kind as ChecklistKind, title: c.title,
     items: c.items.map((i) => ({
-      id: i.id ?? null, key: i.key, kind: i.kind as ItemKind, prompt: i.prompt, guidance: i.guidance, unit: i.unit, rule: i.rule,
+      id: i.id ?? null, key: i.key, kind: i.kind as ItemKind, prompt: i.prompt, guidance: i.guidance, unit: i.unit, rule: i.rule, stepKey: i.stepKey,
       ruleText: i.rule ? describeRule(i.rule, i.unit ?? '') : null,
     })),
   }));

@@ -5,7 +5,7 @@ import { localDate } from '../../shared/time.js';
 import type { CreateProcedureBody, ProcedureListQuery, SaveDraftBody } from '../../shared/schemas/procedures.js';
 import { accessibleWhere } from '../authz/casl-sql.js';
 import { procedureVersions } from '../db/schema/index.js';
-import { badRequest, conflict } from '../errors.js';
+import { badRequest, conflict, unprocessable } from '../errors.js';
 import { findSite } from '../sites/sites.repository.js';
 import { existingProcedure, existingVersion, readableVersion } from './procedures.access.js';
 import { loadContent, replaceContent, type VersionContent } from './content.repository.js';
@@ -111,12 +111,17 @@ function withKeys(body: SaveDraftBody): VersionContent {
     key: c.key ?? randomUUID(), kind: c.kind, title: c.title,
     items: c.items.map((i) => ({
       key: i.key ?? randomUUID(), kind: i.kind, prompt: i.prompt, guidance: i.guidance,
-      unit: i.kind === 'measurement' ? i.unit : null, rule: i.kind === 'measurement' ? i.rule : null,
+      unit: i.kind === 'measurement' ? i.unit : null, rule: i.kind === 'measurement' ? i.rule : null, stepKey: i.stepKey,
     })),
   }));
   unique(steps.map((s) => s.key), (i) => `steps.${i}.key`);
   unique(checklists.map((c) => c.key), (i) => `checklists.${i}.key`);
   checklists.forEach((c, ci) => unique(c.items.map((i) => i.key), (i) => `checklists.${ci}.items.${i}.key`));
+  const stepKeys = new Set(steps.map((s) => s.key));
+  checklists.forEach((c, ci) => c.items.forEach((i, ii) => {
+    const field = `checklists.${ci}.items.${ii}.stepKey`;
+    if (i.stepKey && !stepKeys.has(i.stepKey)) throw unprocessable(`${field}: not a step of this version; choose one of its steps`, { [field]: 'not a step of this version; choose one of its steps' });
+  }));
   return { steps, checklists };
 }
 

@@ -18,7 +18,7 @@ export function presentEntry(e: EntryRow, l: Lookups): EntryView {
     instrument: e.instrumentId ? { id: e.instrumentId, label: l.instruments.get(e.instrumentId) ?? 'unknown instrument' } : null,
     verdict: e.verdict as EntryView['verdict'], judgedBy: e.judgedBy as EntryView['judgedBy'], expected: e.expected, tolerance: e.tolerance,
     ruleText: e.ruleText, source: (e.source as LimitSource | null) ?? null, note: e.note,
-    recordedAt: e.recordedAt.toISOString(), recordedByName: l.names.get(e.recordedBy) ?? 'unknown person',
+    recordedAt: e.recordedAt.toISOString(), recordedByName: l.names.get(e.recordedBy) ?? 'unknown person', seq: e.seq ?? null,
   };
 }
 
@@ -30,7 +30,7 @@ export function presentItems(list: RecordChecklist, entries: EntryRow[], quantit
     const exp = expectationOf(i.rule, quantities);
     const noExpectation = Boolean(exp && exp.expected === null);
     return {
-      id: i.id, position, kind: i.kind as ItemKind, prompt: i.prompt, guidance: i.guidance, unit: i.unit, rule: i.rule,
+      id: i.id, position, kind: i.kind as ItemKind, prompt: i.prompt, guidance: i.guidance, unit: i.unit, rule: i.rule, stepKey: i.stepKey,
       ruleText: i.rule ? describeRule(i.rule, i.unit ?? '') : null,
       expected: exp?.expected ?? null, tolerance: exp?.tolerance ?? null, noExpectation,
       entry: entry ? presentEntry(entry, l) : null,

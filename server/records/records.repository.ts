@@ -3,8 +3,8 @@ import type { Executor } from '../db/client.js';
 import { instruments, signoffEntries, users } from '../db/schema/index.js';
 
 /** The columns an entry has on either kind of record (sign-off or practical). */
-export type EntryRow = Omit<typeof signoffEntries.$inferSelect, 'signoffId'>;
-export type EntryFields = Omit<EntryRow, 'id' | 'itemId'>;
+export type EntryRow = Omit<typeof signoffEntries.$inferSelect, 'signoffId'> & { seq?: number | null };
+export type EntryFields = Omit<EntryRow, 'id' | 'itemId' | 'seq'>;
 
 /** "Make Model SN serial" for each instrument id, in one query. */
 export async function instrumentLabels(db: Executor, ids: string[]): Promise<Map<string, string>> {

@@ -61,8 +61,9 @@ async function one(tx: Executor, audit: Audit, p: One) {
     technicianId: p.technicianId, assessorId: p.assessorId, siteId: p.siteId, benchId: p.benchId, procedureId: p.procedureId, versionId: p.versionId,
     checklistId: p.checklist.id, instrumentIds: p.instrumentIds, circuit: CIRCUIT, expectations: p.expectations, status: 'in_progress', heldAt: p.at, createdAt: p.at, updatedAt: p.at,
   });
-  for (const [i, h] of (await holdPointsOf(tx, p.versionId)).entries()) {
-    await repo.insertHoldPoint(tx, { practicalId: row.id, stepKey: h.key, position: h.position, witnessedAt: minute(10 + i * 5), witnessedBy: p.assessorId, note: null });
+  const holds = await holdPointsOf(tx, p.versionId);
+  for (const [i, h] of holds.entries()) {
+    await repo.insertHoldPoint(tx, { practicalId: row.id, stepKey: h.key, position: h.position, witnessedAt: minute(10 + i * 5), witnessedBy: p.assessorId, note: null, seq: i + 1 });
   }
   const png = scopeCapturePng(p.expectations.firing?.angleDeg ?? 90);
   const ev = await insertEvidence(tx, {
@@ -79,7 +80,7 @@ async function one(tx: Executor, audit: Audit, p: One) {
     } else if (item.kind === 'evidence') fields = { ...fields, kind: 'evidence', checked: null, evidenceId: ev.id };
     else if (item.kind === 'text') fields = { ...fields, kind: 'text', checked: null, text: p.outcome === 'competent' ? 'Methodical; kept the test area clear.' : 'Did not check the setting before reading.' };
     else if (item.kind !== 'tick') throw new Error(`seed: no demo entry for "${item.prompt}"`);
-    await repo.saveEntry(tx, row.id, item.id, fields);
+    await repo.saveEntry(tx, row.id, item.id, { ...fields, seq: holds.length + i + 1 });
   }
   const assessed = await seedSign(tx, p.assessorId, ASSESSED_MEANING, 'practical', row.id, minute(45));
   await repo.updatePractical(tx, row.id, { status: 'assessed', outcome: p.outcome, outcomeComment: p.comment, assessedAt: minute(45), assessorSignatureId: assessed.id, updatedAt: minute(45) });

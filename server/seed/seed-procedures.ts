@@ -63,6 +63,7 @@ export const seedProcedures: SeedStep = async (tx, clock, audit, ctx) => {
 };
 
 function contentOf(v: SeedVersion, keyOf: (id: string) => string) {
+  const stepOf = (id?: string) => (id && v.steps.some((s) => s.id === id) ? keyOf(id) : null);
   return {
     steps: v.steps.map((s) => ({ key: keyOf(s.id), text: s.text, caution: s.caution ?? null, holdPoint: s.holdPoint ?? false })),
     checklists: v.checklists.map((c, ci) => {
@@ -72,6 +73,7 @@ function contentOf(v: SeedVersion, keyOf: (id: string) => string) {
         items: parsed.items.map((it, ii) => ({
           key: keyOf(`${v.title}-list-${ci}-item-${ii}`), kind: it.kind, prompt: it.prompt, guidance: it.guidance,
           unit: it.kind === 'measurement' ? it.unit : null, rule: it.kind === 'measurement' ? it.rule : null,
+          stepKey: stepOf(c.items[ii].step),
         })),
       };
     }),

@@ -23,6 +23,8 @@ export interface EntryView {
   note: string | null;
   recordedAt: string;
   recordedByName: string;
+  /** Practicals: its place in the order things were done at the bench (1, 2, …, across entries and hold points). */
+  seq: number | null;
 }
 
 export interface RecordItemView {
@@ -33,6 +35,8 @@ export interface RecordItemView {
   guidance: string | null;
   unit: string | null;
   rule: AcceptanceRule | null;
+  /** The procedure step the item belongs to (null: no particular step). */
+  stepKey: string | null;
   ruleText: string | null;
   /** For a computed rule: the engine's figure and band before anything is measured. */
   expected: number | null;
@@ -83,7 +87,19 @@ export interface HoldPointView {
   number: number;
   text: string;
   caution: string | null;
-  witnessed: { at: string; byName: string; note: string | null } | null;
+  witnessed: { at: string; byName: string; note: string | null; seq: number | null } | null;
+}
+
+/** One step of the procedure version, as the bench screen lists it. */
+export interface PracticalStepView {
+  key: string;
+  /** 1-based, in procedure order. */
+  number: number;
+  text: string;
+  caution: string | null;
+  holdPoint: boolean;
+  /** The step to work on now: the first with an unwitnessed hold point or an item still to record. */
+  current: boolean;
 }
 
 export interface PracticalView extends RecordBase {
@@ -95,6 +111,8 @@ export interface PracticalView extends RecordBase {
   circuit: Circuit;
   expectations: Expectations;
   holdPoints: HoldPointView[];
+  /** Every step of the procedure version in order, with its caution and hold point. */
+  steps: PracticalStepView[];
   /** Instruments named when the practical was opened, and any used since. */
   instruments: { id: string; label: string }[];
   outcome: Outcome | null;

@@ -75,6 +75,8 @@ export interface ChecklistItemView {
   guidance: string | null;
   unit: string | null;
   rule: AcceptanceRule | null;
+  /** The step of the same version the item belongs to (null: no particular step). */
+  stepKey: string | null;
   /** The acceptance rule in words, with its source where it has one. */
   ruleText: string | null;
 }

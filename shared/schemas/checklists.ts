@@ -51,15 +51,17 @@ export const acceptanceRuleSchema = z.discriminatedUnion('type', [
 export type AcceptanceRule = z.infer<typeof acceptanceRuleSchema>;
 
 const key = uuid('key must be a UUID').optional();
+/** The step of the same version the item belongs to; nothing of a later step is recorded before an earlier hold point is witnessed. */
+const stepKey = uuid('choose a step of this procedure').nullish().transform((v) => v ?? null);
 const prompt = line().min(3, 'write the item (at least 3 characters)').max(500, 'use at most 500 characters');
 const guidance = paragraph().max(1000, 'use at most 1000 characters').nullish().transform((v) => v || null);
 
 export const checklistItemSchema = z
   .discriminatedUnion('kind', [
-    z.object({ kind: z.literal('tick'), key, prompt, guidance }),
-    z.object({ kind: z.literal('text'), key, prompt, guidance }),
-    z.object({ kind: z.literal('evidence'), key, prompt, guidance }),
-    z.object({ kind: z.literal('measurement'), key, prompt, guidance, unit: line().min(1, 'give the unit').max(20), rule: acceptanceRuleSchema }),
+    z.object({ kind: z.literal('tick'), key, prompt, guidance, stepKey }),
+    z.object({ kind: z.literal('text'), key, prompt, guidance, stepKey }),
+    z.object({ kind: z.literal('evidence'), key, prompt, guidance, stepKey }),
+    z.object({ kind: z.literal('measurement'), key, prompt, guidance, stepKey, unit: line().min(1, 'give the unit').max(20), rule: acceptanceRuleSchema }),
   ])
   .superRefine((item, ctx) => {
     if (item.kind !== 'measurement') return;

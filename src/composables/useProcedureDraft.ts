@@ -6,7 +6,7 @@ import { isApiError } from '@/api';
 import { proceduresApi, type SaveDraftInput, type VersionView } from '@/api/procedures';
 
 export interface EditorStep { key: string; text: string; caution: string; holdPoint: boolean }
-export interface EditorItem { key: string; kind: ItemKind; prompt: string; guidance: string; unit: string; rule: AcceptanceRule | null }
+export interface EditorItem { key: string; kind: ItemKind; prompt: string; guidance: string; unit: string; rule: AcceptanceRule | null; stepKey: string | null }
 export interface EditorChecklist { key: string; kind: ChecklistKind; title: string; items: EditorItem[] }
 export interface DraftForm {
   title: string; category: ProcedureCategory; reviewPeriodMonths: number; scope: string;
@@ -16,12 +16,17 @@ export interface DraftForm {
 
 export const newKey = () => crypto.randomUUID();
 
+/** A new checklist item belongs to the step of the item before it, or to the first step when it is the first. */
+export function newItem(steps: EditorStep[], before?: EditorItem): EditorItem {
+  return { key: newKey(), kind: 'tick', prompt: '', guidance: '', unit: '', rule: null, stepKey: before ? before.stepKey : (steps[0]?.key ?? null) };
+}
+
 function formOf(v: VersionView): DraftForm {
   return {
     title: v.title, category: v.category, reviewPeriodMonths: v.reviewPeriodMonths, scope: v.scope,
     hazards: [...v.hazards], ppe: [...v.ppe], equipment: [...v.equipment],
     steps: v.steps.map((s) => ({ key: s.key, text: s.text, caution: s.caution ?? '', holdPoint: s.holdPoint })),
-    checklists: v.checklists.map((c) => ({ key: c.key, kind: c.kind, title: c.title, items: c.items.map((i) => ({ key: i.key, kind: i.kind, prompt: i.prompt, guidance: i.guidance ?? '', unit: i.unit ?? '', rule: i.rule })) })),
+    checklists: v.checklists.map((c) => ({ key: c.key, kind: c.kind, title: c.title, items: c.items.map((i) => ({ key: i.key, kind: i.kind, prompt: i.prompt, guidance: i.guidance ?? '', unit: i.unit ?? '', rule: i.rule, stepKey: i.stepKey ?? null })) })),
     changeSummary: v.changeSummary ?? '', changeClass: v.changeClass, rereadDays: v.rereadDays,
   };
 }
@@ -32,7 +37,7 @@ function bodyOf(f: DraftForm, first: boolean): SaveDraftInput {
     steps: f.steps.map((s) => ({ key: s.key, text: s.text, caution: s.caution || null, holdPoint: s.holdPoint })),
     checklists: f.checklists.map((c) => ({
       key: c.key, kind: c.kind, title: c.title,
-      items: c.items.map((i) => (i.kind === 'measurement' ? { key: i.key, kind: i.kind, prompt: i.prompt, guidance: i.guidance || null, unit: i.unit, rule: i.rule! } : { key: i.key, kind: i.kind, prompt: i.prompt, guidance: i.guidance || null })),
+      items: c.items.map((i) => (i.kind === 'measurement' ? { key: i.key, kind: i.kind, prompt: i.prompt, guidance: i.guidance || null, stepKey: i.stepKey, unit: i.unit, rule: i.rule! } : { key: i.key, kind: i.kind, prompt: i.prompt, guidance: i.guidance || null, stepKey: i.stepKey })),
     })) as SaveDraftInput['checklists'],
     changeSummary: first ? null : f.changeSummary || null, changeClass: first ? null : f.changeClass,
   };

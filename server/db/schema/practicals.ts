@@ -128,6 +128,8 @@ export const practicalEntries = pgTable('practical_entries', {
   id: uuid('id').primaryKey().defaultRandom(),
   practicalId: uuid('practical_id').notNull().references(() => practicals.id),
   ...entryColumns(),
+  // The order things were done in at the bench, counted across entries and hold points of the practical.
+  seq: integer('seq'),
 }, (t) => [
   uniqueIndex('practical_entries_item_uq').on(t.practicalId, t.itemId),
   ...entryChecks('practical_entries', t),
@@ -143,6 +145,7 @@ export const practicalHoldPoints = pgTable('practical_hold_points', {
   witnessedAt: ts('witnessed_at').notNull(),
   witnessedBy: uuid('witnessed_by').notNull().references(() => users.id),
   note: text('note'),
+  seq: integer('seq'),
 }, (t) => [
   uniqueIndex('practical_hold_points_step_uq').on(t.practicalId, t.stepKey),
   uniqueIndex('practical_hold_points_position_uq').on(t.practicalId, t.position),

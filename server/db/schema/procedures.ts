@@ -114,6 +114,8 @@ export const checklistItems = pgTable('checklist_items', {
   unit: text('unit'),
   // Validated against acceptanceRuleSchema (shared/schemas/checklists.ts) before it is stored.
   rule: jsonb('rule'),
+  // The key of the step of the same version this item belongs to (null: no particular step).
+  stepKey: uuid('step_key'),
 }, (t) => [
   uniqueIndex('checklist_items_position_uq').on(t.checklistId, t.position),
   uniqueIndex('checklist_items_key_uq').on(t.checklistId, t.key),

@@ -27,9 +27,9 @@ export const heaterDraft: SeedProcedure = {
       kind: 'practical-assessment',
       title: 'Heater regulator commissioning, supervised practical',
       items: [
-        { kind: 'measurement', prompt: 'RMS load current at the mid setting', unit: 'A', rule: { type: 'computed', quantity: 'load-rms-current', tolerance: { mode: 'relative', percent: 10 } } },
-        { kind: 'measurement', prompt: 'Output RMS voltage at the mid setting', unit: 'V', rule: { type: 'computed', quantity: 'output-rms-voltage', tolerance: { mode: 'relative', percent: 8 } } },
-        { kind: 'tick', prompt: 'Element never left energised unattended' },
+        { step: 'measure', kind: 'measurement', prompt: 'RMS load current at the mid setting', unit: 'A', rule: { type: 'computed', quantity: 'load-rms-current', tolerance: { mode: 'relative', percent: 10 } } },
+        { step: 'measure', kind: 'measurement', prompt: 'Output RMS voltage at the mid setting', unit: 'V', rule: { type: 'computed', quantity: 'output-rms-voltage', tolerance: { mode: 'relative', percent: 8 } } },
+        { step: 'measure', kind: 'tick', prompt: 'Element never left energised unattended' },
       ],
     }],
   }],

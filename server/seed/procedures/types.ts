@@ -1,4 +1,4 @@
-import type { ChecklistInput } from '../../../shared/schemas/checklists.js';
+import type { ChecklistInput, ChecklistItemInput } from '../../../shared/schemas/checklists.js';
 import type { ChangeClass, ProcedureCategory } from '../../../shared/schemas/procedures.js';
 
 /** A step with a local name, so the same step keeps its key from one version to the next. */
@@ -9,6 +9,9 @@ export interface SeedStep {
   holdPoint?: boolean;
 }
 
+/** A checklist whose items name the step they belong to by its local name (dropped where the version lacks it). */
+export type SeedChecklist = Omit<ChecklistInput, 'items'> & { items: (ChecklistItemInput & { step?: string })[] };
+
 export interface SeedVersion {
   title: string;
   scope: string;
@@ -16,7 +19,7 @@ export interface SeedVersion {
   ppe: string[];
   equipment: string[];
   steps: SeedStep[];
-  checklists: ChecklistInput[];
+  checklists: SeedChecklist[];
   change?: { changeClass: ChangeClass; summary: string };
   rereadDays?: number;
   /** Days before the demo is seeded that this version was published (omitted: left in review). */

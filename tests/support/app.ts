@@ -21,6 +21,8 @@ export interface TestAppOptions {
   env?: Record<string, string>;
   /** false: mail waits in the outbox until the test delivers it (deliverMail), as if the process died. */
   deliverOnCommit?: boolean;
+  /** Rewrites the app's database URL (a test puts a proxy it can cut in between). */
+  databaseUrl?: (url: string) => string;
 }
 
 /**
@@ -32,7 +34,7 @@ export async function makeTestApp(opts: TestAppOptions = {}) {
   const outbox = mkdtempSync(path.join(os.tmpdir(), 'breakover-outbox-'));
   const clock = new SettableClock(opts.start ?? '2026-03-02T09:00:00Z');
   const config = loadConfig({
-    DATABASE_URL: database.url,
+    DATABASE_URL: opts.databaseUrl ? opts.databaseUrl(database.url) : database.url,
     PUBLIC_URL,
     SESSION_SECRET: 'test-secret-'.padEnd(40, 'x'),
     AUDIT_KEY: TEST_AUDIT_KEY,

@@ -11,7 +11,7 @@ afterEach(() => {
 // Expected output 190.2 V ± 5 %: the band is ± 9.508 V (common practice: a relative tolerance of the expected value).
 const item: RecordItemView = {
   id: '20000000-0000-4000-8000-000000000001', position: 2, kind: 'measurement', prompt: 'Output RMS voltage', guidance: null, unit: 'V',
-  rule: { type: 'computed', quantity: 'output-rms-voltage', tolerance: { mode: 'relative', percent: 5 } },
+  rule: { type: 'computed', quantity: 'output-rms-voltage', tolerance: { mode: 'relative', percent: 5 } }, stepKey: null,
   ruleText: 'Output RMS voltage computed from the bench set-up, ± 5 %', expected: 190.16, tolerance: '± 5 % (± 9.508 V)', noExpectation: false, entry: null, problem: 'not measured',
 };
 const quantities = { 'output-rms-voltage': 190.16 };

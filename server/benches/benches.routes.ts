@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { route, type RouteDef } from '../routing.js';
 import { pageQuery, uuidParam } from '../../shared/schemas/common.js';
 import { benchBody, benchesQuery, benchUpdateBody, preUseCheckBody } from '../../shared/schemas/benches.js';
+import { typeAcDecisionBody } from '../../shared/schemas/bench-decisions.js';
 import type { makeBenchesService } from './benches.service.js';
 
 const checksQuery = pageQuery.omit({ q: true });
@@ -18,6 +19,14 @@ export function benchesRoutes(benches: ReturnType<typeof makeBenchesService>): R
     route({
       method: 'get', path: '/benches/:id/usability', access: ['read', 'Bench'], params: uuidParam, query: z.object({}).strict(),
       handler: async ({ ability, params }) => benches.usabilityOf(ability, params.id),
+    }),
+    route({
+      method: 'get', path: '/benches/:id/type-ac-decisions', access: ['read', 'Bench'], params: uuidParam, query: z.object({}).strict(),
+      handler: async ({ ability, params }) => benches.typeAc.list(ability, params.id),
+    }),
+    route({
+      method: 'post', path: '/benches/:id/type-ac-decisions', access: ['update', 'Bench'], params: uuidParam, body: typeAcDecisionBody, status: 201,
+      handler: async ({ actor, ability, params, body }) => benches.typeAc.record(actor!, ability, params.id, body),
     }),
     route({
       method: 'get', path: '/benches/:id/pre-use-checks', access: ['read', 'BenchCheck'], params: uuidParam, query: checksQuery,

@@ -9,6 +9,8 @@ import { countSites } from '../sites/sites.repository.js';
 import * as repo from './benches.repository.js';
 import { presentBench, presentCheck } from './equipment.present.js';
 import type { Usability } from './usability.service.js';
+import { makeTypeAcDecisions } from './type-ac.service.js';
+import { typeAcDecisionsOf } from './type-ac.repository.js';
 
 export const PRE_USE_CHECK_MEANING = 'pre-use check carried out as recorded';
 
@@ -85,9 +87,12 @@ export function makeBenchesService(deps: Deps, signatures: Signatures, usability
   }
 
   async function usabilityOf(ability: AppAbility, id: string) {
-    await load(ability, id);
-    return usability.checkBenchUsable(id, clock.now());
+    const view = await load(ability, id);
+    const usable = await usability.checkBenchUsable(id, clock.now());
+    // A Type AC bench is refused for practicals unless this decision stands.
+    const typeAcDecision = view.bench.rcdType === 'AC' ? ((await typeAcDecisionsOf(db, id))[0] ?? null) : null;
+    return { ...usable, typeAcDecision };
   }
 
-  return { list, get: async (ability: AppAbility, id: string) => presentBench(await load(ability, id), clock.now()), create, update, listChecks, recordCheck, usabilityOf };
+  return { typeAc: makeTypeAcDecisions(deps), list, get: async (ability: AppAbility, id: string) => presentBench(await load(ability, id), clock.now()), create, update, listChecks, recordCheck, usabilityOf };
 }

@@ -6,6 +6,8 @@ import { AppError, notFound } from '../errors.js';
 import { findBench } from './benches.repository.js';
 import { findInstrument } from './instruments.repository.js';
 import { instrumentState, presentBench, presentInstrument } from './equipment.present.js';
+import { typeAcDecisionsOf } from './type-ac.repository.js';
+import { TYPE_AC_REFUSAL } from '../../shared/schemas/bench-decisions.js';
 
 function refuse(status: number, code: string, problems: { field: string; message: string }[]): never {
   throw new AppError(status, code, problems.map((p) => p.message).join('; '), Object.fromEntries(problems.map((p) => [p.field, p.message])));
@@ -43,7 +45,22 @@ export function makeUsability(deps: Deps) {
     return { usable: true as const, instrument, warnings: warningsOf(instrument.flags) };
   }
 
-  return { checkBenchUsable, checkInstrumentUsable };
+  /**
+   * What a practical on a phase-cut load needs of a usable bench: a Type AC RCD only with a manager's
+   * recorded decision (returned, to be kept on the practical), and a reason when the technician belongs
+   * to another site than the bench. Refuses with 422 naming `benchId` or `crossSiteReason`.
+   */
+  async function checkBenchForPractical(bench: { id: string; code: string; siteId: string; rcdType: string | null }, technicianSiteId: string, crossSiteReason: string | null, db: Executor = deps.db) {
+    if (bench.siteId !== technicianSiteId && !crossSiteReason) {
+      refuse(422, 'cross_site_reason_needed', [{ field: 'crossSiteReason', message: `bench ${bench.code} is at another site than the technician's: say why they work there` }]);
+    }
+    if (bench.rcdType !== 'AC') return { typeAcDecision: null };
+    const [decision] = await typeAcDecisionsOf(db, bench.id);
+    if (!decision) refuse(422, 'bench_type_ac', [{ field: 'benchId', message: `bench ${bench.code} ${TYPE_AC_REFUSAL}` }]);
+    return { typeAcDecision: decision };
+  }
+
+  return { checkBenchUsable, checkInstrumentUsable, checkBenchForPractical };
 }
 
 export type Usability = ReturnType<typeof makeUsability>;

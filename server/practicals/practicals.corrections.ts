@@ -29,6 +29,7 @@ export function makePracticalCorrections(deps: Deps, signatures: Signatures) {
         technicianId: old.technicianId, assessorId: actor.id, siteId: old.siteId, benchId: old.benchId, procedureId: old.procedureId, versionId: old.versionId,
         checklistId: old.checklistId, scopeId: old.scopeId, instrumentIds: old.instrumentIds, circuit: old.circuit, expectations: old.expectations,
         status: 'in_progress', heldAt: old.heldAt, createdAt: now, updatedAt: now, correctsId: old.id, correctionReason: reason,
+        crossSiteReason: old.crossSiteReason, typeAcDecisionId: old.typeAcDecisionId,
       });
       await repo.copyRecord(tx, old.id, row.id);
       await audit(tx, { actorId: actor.id, action: 'practical.correction_opened', entity: 'practical', entityId: row.id, newValues: { correctsId: old.id, reason } });

@@ -36,6 +36,7 @@ export function makePracticalsService(deps: Deps, signatures: Signatures, usabil
     const created = await db.transaction(async (tx) => {
       const { bench } = await usability.checkBenchUsable(body.benchId, now, tx);
       if (!ability.can('create', subjectOf('Practical', { siteId: bench.siteId, technicianId: technician.id }))) throw forbidden(`You do not cover the site of bench ${bench.code}.`);
+      const { typeAcDecision } = await usability.checkBenchForPractical(bench, technician.siteId, body.crossSiteReason, tx);
       for (const id of body.instrumentIds) {
         const { instrument } = await usability.checkInstrumentUsable(id, now, bench.supplyVoltage, tx);
         if (instrument.siteId !== bench.siteId) throw unprocessable(`instrumentIds: instrument SN ${instrument.serial} belongs to another site`, { instrumentIds: `SN ${instrument.serial} belongs to another site` });
@@ -45,6 +46,7 @@ export function makePracticalsService(deps: Deps, signatures: Signatures, usabil
         technicianId: technician.id, assessorId: actor.id, siteId: bench.siteId, benchId: bench.id, procedureId: body.procedureId, versionId: body.versionId,
         checklistId: checklist.id, scopeId: body.scopeId, instrumentIds: [...new Set(body.instrumentIds)], circuit: body.circuit, expectations,
         status: 'in_progress', heldAt: now, createdAt: now, updatedAt: now,
+        crossSiteReason: bench.siteId === technician.siteId ? null : body.crossSiteReason, typeAcDecisionId: typeAcDecision?.id ?? null,
       });
       await audit(tx, { actorId: actor.id, action: 'practical.opened', entity: 'practical', entityId: row.id, newValues: { ...body, expectations } });
       return row;

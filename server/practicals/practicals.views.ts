@@ -9,6 +9,7 @@ import { loadSteps } from '../procedures/content.repository.js';
 import { presentSteps } from './practicals.steps.js';
 import { presentItems } from '../records/items.present.js';
 import { instrumentLabels, peopleNames } from '../records/records.repository.js';
+import { typeAcDecision } from '../benches/type-ac.repository.js';
 import * as repo from './practicals.repository.js';
 
 const iso = (d: Date | null) => d?.toISOString() ?? null;
@@ -21,6 +22,7 @@ export async function practicalView(db: Executor, signatures: Signatures, p: rep
     repo.benchOf(db, p.benchId), p.scopeId ? repo.scopeBrief(db, p.scopeId) : undefined, repo.correctionOf(db, p.id),
     p.correctsId ? repo.findPractical(db, p.correctsId) : undefined, repo.personBrief(db, p.technicianId),
   ]);
+  const decision = p.typeAcDecisionId ? await typeAcDecision(db, p.typeAcDecisionId) : null;
   const names = await peopleNames(db, [p.technicianId, p.assessorId, ...entries.map((e) => e.recordedBy), ...witnessed.map((w) => w.witnessedBy)]);
   const instruments = await instrumentLabels(db, [...new Set([...p.instrumentIds, ...entries.flatMap((e) => (e.instrumentId ? [e.instrumentId] : []))])]);
   const expectations = p.expectations as Expectations;
@@ -42,7 +44,8 @@ export async function practicalView(db: Executor, signatures: Signatures, p: rep
     circuit: p.circuit as Circuit, expectations, items, progress, holdPoints, steps: presentSteps(steps, new Set(byKey.keys()), items),
     instruments: p.instrumentIds.map((id) => ({ id, label: instruments.get(id) ?? 'unknown instrument' })),
     signatures: signed.map(presentSignature),
-    outcome: p.outcome as Outcome | null, outcomeComment: p.outcomeComment,
+    outcome: p.outcome as Outcome | null, outcomeComment: p.outcomeComment, crossSiteReason: p.crossSiteReason,
+    typeAcDecision: decision && { byName: decision.decidedByName, at: decision.decidedAt, reason: decision.reason },
     heldAt: p.heldAt.toISOString(), assessedAt: iso(p.assessedAt), acknowledgedAt: iso(p.acknowledgedAt),
     corrects: corrected ? { id: corrected.id, reason: p.correctionReason, at: p.createdAt.toISOString() } : null,
     correctedBy: correction ? { id: correction.id, reason: correction.correctionReason, at: correction.createdAt.toISOString() } : null,

@@ -117,6 +117,10 @@ export interface PracticalView extends RecordBase {
   instruments: { id: string; label: string }[];
   outcome: Outcome | null;
   outcomeComment: string | null;
+  /** Why the technician worked on a bench of another site; null at their own site. */
+  crossSiteReason: string | null;
+  /** The manager's decision that let a Type AC bench be used; null otherwise. */
+  typeAcDecision: { byName: string; at: string; reason: string } | null;
   heldAt: string;
   assessedAt: string | null;
   acknowledgedAt: string | null;

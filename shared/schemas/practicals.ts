@@ -70,6 +70,9 @@ export const openPracticalBody = z.object({
   scopeId: id('authorisation scope').nullish().transform((v) => v ?? null),
   instrumentIds: z.array(id('instrument')).max(20, 'at most 20 instruments').default([]),
   circuit: circuitSchema,
+  // Needed when the bench stands at another site than the technician's own.
+  crossSiteReason: paragraph().max(1000, 'use at most 1000 characters').nullish().transform((v) => v?.trim() || null)
+    .refine((v) => v === null || v.length >= 5, 'say why in a few words (at least 5 characters)'),
 });
 export type OpenPracticalBody = z.infer<typeof openPracticalBody>;
 

@@ -16,6 +16,8 @@ export interface OpenPracticalInput {
   scopeId?: string | null;
   instrumentIds: string[];
   circuit: CircuitInput;
+  /** Needed when the bench is at another site than the technician's. */
+  crossSiteReason?: string | null;
 }
 export interface Candidate { id: string; name: string; email: string; siteId: string }
 

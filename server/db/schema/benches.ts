@@ -31,6 +31,21 @@ export const benches = pgTable('benches', {
   check('benches_rcd_ck', sql`(${t.rcdType} is null and ${t.rcdRatedResidualMa} is null) or (${t.rcdType} in ('AC', 'A', 'F', 'B') and ${t.rcdRatedResidualMa} > 0)`),
 ]);
 
+/**
+ * A manager's decision that a bench with a Type AC RCD may still be used for practicals on phase-cut
+ * loads, with the reason (e.g. a Type A ahead of it). Never changed: the latest one for a bench stands.
+ */
+export const benchTypeAcDecisions = pgTable('bench_type_ac_decisions', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  benchId: uuid('bench_id').notNull().references(() => benches.id),
+  decidedBy: uuid('decided_by').notNull().references(() => users.id),
+  decidedAt: ts('decided_at').notNull(),
+  reason: text('reason').notNull(),
+}, (t) => [
+  index('bench_type_ac_decisions_bench_idx').on(t.benchId, t.decidedAt.desc()),
+  check('bench_type_ac_decisions_reason_ck', sql`length(${t.reason}) >= 10`),
+]);
+
 /** A signed pre-use check of a bench; the checklist-driven kind links its checklist response. */
 export const benchChecks = pgTable('bench_checks', {
   id: uuid('id').primaryKey().defaultRandom(),

@@ -2,7 +2,7 @@ import { sql } from 'drizzle-orm';
 import { pgTable, uuid, text, integer, boolean, timestamp, jsonb, doublePrecision, index, uniqueIndex, check, type AnyPgColumn } from 'drizzle-orm/pg-core';
 import { sites, users } from './core.js';
 import { signatures } from './signatures.js';
-import { benches, instruments } from './benches.js';
+import { benches, benchTypeAcDecisions, instruments } from './benches.js';
 import { evidence } from './evidence.js';
 import { checklistItems, procedureChecklists, procedures, procedureVersions } from './procedures.js';
 import { scopes } from './authorisations.js';
@@ -110,6 +110,10 @@ export const practicals = pgTable('practicals', {
   technicianSignatureId: uuid('technician_signature_id').references(() => signatures.id),
   correctsId: uuid('corrects_id').references((): AnyPgColumn => practicals.id),
   correctionReason: text('correction_reason'),
+  // Why a technician works on a bench of another site than their own (required then).
+  crossSiteReason: text('cross_site_reason'),
+  // The manager's decision that allowed a Type AC bench, when the bench had one.
+  typeAcDecisionId: uuid('type_ac_decision_id').references(() => benchTypeAcDecisions.id),
 }, (t) => [
   index('practicals_technician_idx').on(t.technicianId, t.heldAt),
   index('practicals_assessor_idx').on(t.assessorId, t.heldAt),

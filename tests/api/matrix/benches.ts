@@ -10,6 +10,8 @@ export const rows: MatrixRows = {
   'GET /benches/:id': [...readers],
   'PATCH /benches/:id': ['manager'],
   'GET /benches/:id/usability': [...readers],
+  'GET /benches/:id/type-ac-decisions': [...readers],
+  'POST /benches/:id/type-ac-decisions': ['manager'],
   'GET /benches/:id/pre-use-checks': [...readers],
   'POST /benches/:id/pre-use-checks': [...benchStaff],
   'GET /instruments': [...readers],

@@ -5,9 +5,9 @@ import { chmodSync, copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSy
 import os from 'node:os';
 import path from 'node:path';
 import { freePort } from '../../scripts/lib/ports.js';
-import { countRows } from '../../scripts/lib/backup-manifest.js';
+import { countRows, type Member } from '../../scripts/lib/backup-manifest.js';
 import { DEMO } from '../support/people.js';
-import { grants, runCommand, startInstall, stopInstall, withOwner, type Env } from '../support/installation.js';
+import { filesOnceThere, grants, runCommand, startInstall, stopInstall, withOwner, type Env } from '../support/installation.js';
 import { api, signIn, uploadCsv } from '../support/installation-api.js';
 
 // The whole path as an operator runs it: a running installation backed up, its data folder lost, the
@@ -40,6 +40,8 @@ describe('backup and restore', () => {
     const bytes = Buffer.from(`instrument,reading_ohm\nMFT-1,0.42\nMFT-1,${Date.now()}\n`);
     const technician = await signIn(base, DEMO.technician);
     const evidence = await uploadCsv(base, technician, bytes, 'continuity.csv');
+    await api(base, admin, 'POST', '/api/people', { email: 'kept.through.backup@demo.breakover.test', name: 'Kept Through-Backup', siteId: site.id, roles: ['technician'] });
+    const invitation = await filesOnceThere(env.MAIL_OUTBOX_DIR!); // delivered by the queue after the commit
     const before = { sites: await api(base, admin, 'GET', '/api/sites'), people: await api(base, admin, 'GET', '/api/people?pageSize=100'), authorisations: await api(base, admin, 'GET', '/api/authorisations?pageSize=100') };
     expect(before.sites.map((s: { id: string }) => s.id)).toContain(site.id);
 
@@ -48,7 +50,9 @@ describe('backup and restore', () => {
     expect(backup.out).toContain('the audit key and the session secret are not in this file');
     expect(execFileSync('sha256sum', ['-c', `${file}.sha256`], { cwd: copies, encoding: 'utf8' })).toContain('nightly.tar: OK');
     const manifest = JSON.parse(execFileSync('tar', ['-xOf', file, 'manifest.json'], { encoding: 'utf8' }));
-    expect(manifest.includes.auditKey).toBe(false);
+    const outbox = Object.fromEntries((manifest.members as Member[]).filter((m) => m.path.startsWith('mail-outbox/')).map((m) => [m.path.slice(12), m.sha256]));
+    expect(outbox).toMatchObject(invitation);
+    expect(manifest.includes).toMatchObject({ auditKey: false, outboxFiles: Object.keys(outbox).length });
     expect(execFileSync('tar', ['-tf', file], { encoding: 'utf8' })).not.toContain('audit-key');
 
     await stopInstall(server);
@@ -68,6 +72,7 @@ describe('backup and restore', () => {
       expect(may.rows[0]).toEqual({ ins: true, upd: false, del: false });
     });
 
+    expect(await filesOnceThere(env.MAIL_OUTBOX_DIR!)).toEqual(outbox);
     const again = await startInstall(env);
     server = again.proc;
     expect(again.output()).not.toContain('seeded the demo scenario');

@@ -23,7 +23,7 @@ export async function api(base: string, cookie: string, method: string, url: str
 export async function uploadCsv(base: string, cookie: string, bytes: Buffer, fileName: string): Promise<{ id: string }> {
   const form = new FormData();
   form.append('caption', 'kept through a backup');
-  form.append('file', new Blob([bytes], { type: 'text/csv' }), fileName);
+  form.append('file', new Blob([new Uint8Array(bytes)], { type: 'text/csv' }), fileName);
   const res = await fetch(`${base}/api/evidence`, { method: 'POST', headers: { cookie, origin: base }, body: form });
   const text = await res.text();
   expect(res.status, text).toBe(201);

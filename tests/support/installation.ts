@@ -1,7 +1,8 @@
 // A whole installation in its own data folder, driven as a user drives it: `node scripts/bootstrap.mjs
 // <command>` (npm start, backup, restore), plus the owner's queries on its private cluster while stopped.
 import { spawn, type ChildProcess } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
 import { findPostgresBin, startCluster, stopCluster } from '../../scripts/lib/cluster.js';
@@ -73,4 +74,14 @@ export async function grants(c: pg.Client): Promise<string[]> {
      union all select 'default ' || defaclobjtype::text || ' ' || defaclacl::text from pg_default_acl order by 1`,
   );
   return rows.map((r) => r.g);
+}
+
+/** The files in a folder with their SHA-256, once there is at least one (a queue writes them after a commit). */
+export async function filesOnceThere(dir: string, timeoutMs = 30_000): Promise<Record<string, string>> {
+  for (const until = Date.now() + timeoutMs; ; ) {
+    const names = existsSync(dir) ? readdirSync(dir).sort() : [];
+    if (names.length) return Object.fromEntries(names.map((n) => [n, createHash('sha256').update(readFileSync(path.join(dir, n))).digest('hex')]));
+    if (Date.now() > until) throw new Error(`nothing arrived in ${dir} within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
 }

@@ -7,28 +7,15 @@ import pg from 'pg';
 import { drizzle } from 'drizzle-orm/node-postgres';
 import { migrate } from 'drizzle-orm/node-postgres/migrator';
 import { runCommand } from '../support/installation.js';
+import { databaseEnv, onAdmin, query, urlOf } from '../support/backup-db.js';
 
 // A backup made by an older version (its database stopped at an earlier migration), restored by this
 // one into an existing database given by DATABASE_OWNER_URL: the restore brings it up to date.
-const admin = process.env.TEST_PG_ADMIN_URL!;
 const work = mkdtempSync(path.join(os.tmpdir(), 'breakover-upgrade-'));
 const suffix = randomBytes(4).toString('hex');
 const [oldDb, newDb] = [`bk_old_${suffix}`, `bk_new_${suffix}`];
-const urlOf = (db: string, user = 'postgres') => { const u = new URL(admin); u.username = user; u.pathname = `/${db}`; return u.toString(); };
 const journal = JSON.parse(readFileSync('drizzle/meta/_journal.json', 'utf8')) as { entries: { tag: string }[] };
 const OLD_TAG = '0024_mail_outbox';
-
-async function onAdmin(sql: string) {
-  const c = new pg.Client({ connectionString: admin });
-  await c.connect();
-  await c.query(sql).finally(() => c.end());
-}
-
-async function query(url: string, sql: string) {
-  const c = new pg.Client({ connectionString: url });
-  await c.connect();
-  return c.query(sql).finally(() => c.end());
-}
 
 afterAll(async () => {
   for (const db of [oldDb, newDb]) await onAdmin(`drop database if exists ${db} with (force)`);
@@ -50,12 +37,12 @@ describe('restore of an older backup', () => {
 
     const env = { BREAKOVER_DATA_DIR: path.join(work, 'data'), AUDIT_ANCHOR_DIR: path.join(work, 'data'), MAIL_OUTBOX_DIR: path.join(work, 'outbox') };
     const file = path.join(work, 'old.tar');
-    const backup = await runCommand(['backup', '--out', file], { ...env, DATABASE_URL: urlOf(oldDb, 'breakover_app'), DATABASE_OWNER_URL: urlOf(oldDb), AUDIT_KEY: process.env.AUDIT_KEY });
+    const backup = await runCommand(['backup', '--out', file], { ...env, ...databaseEnv(oldDb), AUDIT_KEY: process.env.AUDIT_KEY });
     expect(backup.code, backup.out).toBe(0);
     expect(backup.out).toContain(`schema ${OLD_TAG}`);
 
     await onAdmin(`create database ${newDb}`);
-    const restore = await runCommand(['restore', file], { ...env, DATABASE_URL: urlOf(newDb, 'breakover_app'), DATABASE_OWNER_URL: urlOf(newDb), AUDIT_KEY: process.env.AUDIT_KEY });
+    const restore = await runCommand(['restore', file], { ...env, ...databaseEnv(newDb), AUDIT_KEY: process.env.AUDIT_KEY });
     expect(restore.code, restore.out).toBe(0);
     expect(restore.out).toContain(`migrated from ${OLD_TAG} to ${journal.entries.at(-1)!.tag}`);
 

@@ -133,4 +133,14 @@ describe('backup and restore', () => {
     expect(codes).toContain('BACKUP-TEST');
     expect(codes).not.toContain('AFTER-RESTORE');
   }, 120_000);
+
+  it('when nothing is running, then backup starts the private cluster and stops it again after', async () => {
+    const offline = path.join(copies, 'offline.tar');
+    const backup = await runCommand(['backup', '--out', offline], env);
+    expect(backup.code, backup.out).toBe(0);
+    expect(backup.out).toContain('started the private cluster for this');
+    expect(existsSync(path.join(dataDir, 'pg', 'postmaster.pid')), 'the cluster was stopped again').toBe(false);
+    const manifest = JSON.parse(execFileSync('tar', ['-xOf', offline, 'manifest.json'], { encoding: 'utf8' }));
+    expect(manifest.tables['public.sites']).toBe(3);
+  }, 120_000);
 });

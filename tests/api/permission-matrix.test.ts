@@ -60,7 +60,7 @@ describe('permission matrix', () => {
         else expect.soft(res.status, `${keyOf(r)} as ${role}`).toBe(403);
       }
     }
-  });
+  }, 120_000); // every route five times, PDF exports among them
 
   // Ids are parsed once at the boundary: every accepted spelling of an id reaches the same answer, and the
   // spellings PostgreSQL would read but the API does not take are refused before any handler runs.

@@ -26,7 +26,7 @@ async function main() {
   const dirs = installationDirs(root);
   const createdAt = new Date();
   const out = args.out ?? path.join(dirs.dataRoot, 'backups', `breakover-${createdAt.toISOString().replace(/[:.]/g, '-')}.tar`);
-  mkdirSync(path.dirname(out), { recursive: true });
+  mkdirSync(path.dirname(out), { recursive: true, mode: 0o700 });
   const target = await openTarget(root, dirs.dataRoot, log, false);
   const staging = mkdtempSync(path.join(os.tmpdir(), 'breakover-backup-'));
   try {

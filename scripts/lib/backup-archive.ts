@@ -1,7 +1,7 @@
 // The backup file: one tar of a staging folder (dump, files, manifest.json), and FILE.sha256 beside it
 // in sha256sum's format, so `sha256sum -c FILE.sha256` checks it without Breakover.
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, readdirSync, renameSync, statSync, writeFileSync } from 'node:fs';
+import { chmodSync, existsSync, mkdtempSync, readFileSync, readdirSync, renameSync, statSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, sha256File, type Manifest, type Member } from './backup-manifest.js';
@@ -34,6 +34,7 @@ export async function writeArchive(staging: string, manifest: Manifest, out: str
   writeFileSync(path.join(staging, 'manifest.json'), `${JSON.stringify(manifest, null, 2)}\n`);
   const partial = `${out}.partial`;
   tar(['-cf', partial, '-C', staging, 'manifest.json', ...manifest.members.map((m) => m.path)]);
+  chmodSync(partial, 0o600); // every record and evidence file of the workshop: for the owner's eyes only
   renameSync(partial, out);
   const sum = await sha256File(out);
   writeFileSync(`${out}.sha256`, `${sum}  ${path.basename(out)}\n`);

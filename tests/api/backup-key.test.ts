@@ -1,6 +1,6 @@
 import { describe, it, expect, afterAll } from 'vitest';
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import os from 'node:os';
 import path from 'node:path';
@@ -38,6 +38,7 @@ describe('backup and the audit key', () => {
     const backup = await runCommand(['backup', '--include-audit-key', '--out', file], { ...dataFolder('source', TEST_AUDIT_KEY), ...source });
     expect(backup.code, backup.out).toBe(0);
     expect(backup.out).toContain('THIS FILE HOLDS THE AUDIT KEY');
+    expect((statSync(file).mode & 0o777).toString(8), 'only the owner may read a backup').toBe('600');
     expect(execFileSync('tar', ['-tf', file], { encoding: 'utf8' }).split('\n')).toEqual(expect.arrayContaining(['audit-key', 'audit-anchors.log']));
 
     await onAdmin(`create database ${targets[0]}`);

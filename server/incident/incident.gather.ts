@@ -10,6 +10,8 @@ import { filesOf } from '../register/evidence.repository.js';
 import type { makeRowEvidence } from '../register/register.evidence.js';
 import { acknowledgementsBy, practicalsBy, versionsInForceAt } from './incident.repository.js';
 import { benchThen, instrumentsThen } from './equipment.then.js';
+import { rereadDeadlinesAt } from './reread.repository.js';
+import { endOfLocalDay } from '../../shared/time.js';
 import type { IncidentPack, PackFile } from './incident.types.js';
 
 type Parts = Omit<IncidentPack, 'producedAt' | 'producedBy' | 'note' | 'person'>;
@@ -23,11 +25,16 @@ export async function gatherPack(deps: Deps, rows: ReturnType<typeof makeRowEvid
   for (const r of held) authorisations.push(await rows.evidenceOf(ability, r.authorisationId, { at: at.toISOString(), view: 'effective' }));
 
   const [versions, acks, practicalRows, certs] = await Promise.all([versionsInForceAt(db, at), acknowledgementsBy(db, person.id, at), practicalsBy(db, person.id, at), certificatesOf(db, [person.id])]);
+  // The portal's rule (shared/procedures/reread-rule.ts): an earlier acknowledgement counts until the end of the re-read deadline.
+  const deadlines = await rereadDeadlinesAt(db, person.id, versions.map((v) => v.versionId), at);
   const procedures = versions.map((v) => {
     const ack = acks.find((a) => a.procedureId === v.procedureId);
+    const current = !!ack && ack.versionNumber >= (v.ackFromNumber ?? v.number);
+    const dueOn = deadlines.get(v.versionId) ?? null;
+    const counts = current || (!!ack && dueOn !== null && at < endOfLocalDay(dueOn, person.timeZone));
     return {
       code: v.code, number: v.number, title: v.title, publishedAt: v.publishedAt!,
-      acknowledged: ack ? { number: ack.versionNumber, at: ack.acknowledgedAt, printedName: ack.printedName, counts: ack.versionNumber >= (v.ackFromNumber ?? v.number) } : null,
+      acknowledged: ack ? { number: ack.versionNumber, at: ack.acknowledgedAt, printedName: ack.printedName, counts, current, dueOn: current ? null : dueOn } : null,
     };
   });
 

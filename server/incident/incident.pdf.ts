@@ -1,6 +1,7 @@
 import { formatInZone } from '../../shared/time.js';
 import { ALERT, MUTED, PdfWriter, WARN } from '../pdf/pdf-document.js';
 import type { IncidentPack } from './incident.types.js';
+import { earlierAckState } from '../../shared/procedures/reread-rule.js';
 
 /** The pack as one PDF: what stood at the moment, section by section, with the files listed by hash. */
 export async function renderIncidentPdf(p: IncidentPack): Promise<Uint8Array> {
@@ -30,7 +31,7 @@ export async function renderIncidentPdf(p: IncidentPack): Promise<Uint8Array> {
   if (!p.procedures.length) pdf.text('No procedure version was in force.', { color: MUTED });
   for (const v of p.procedures) {
     const ack = v.acknowledged;
-    const said = ack ? `acknowledged version ${ack.number} on ${when(ack.at)}, signed ${ack.printedName}${ack.counts ? '' : ' (an earlier version that no longer counted)'}` : 'not acknowledged by then';
+    const said = ack ? `acknowledged version ${ack.number} on ${when(ack.at)}, signed ${ack.printedName}${ack.current ? '' : ` (${earlierAckState(ack.counts, ack.dueOn)})`}` : 'not acknowledged by then';
     pdf.text(`${v.code} version ${v.number} ${v.title} (in force since ${when(v.publishedAt)}): ${said}`, { size: 9.5, color: ack?.counts ? undefined : ALERT });
   }
 

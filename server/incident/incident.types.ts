@@ -9,7 +9,7 @@ export interface IncidentPack {
   note: string;
   person: { id: string; name: string; email: string; siteCode: string; siteName: string; timeZone: string };
   authorisations: RowEvidenceView[];
-  procedures: { code: string; number: number; title: string; publishedAt: Date; acknowledged: { number: number; at: Date; printedName: string; counts: boolean } | null }[];
+  procedures: { code: string; number: number; title: string; publishedAt: Date; acknowledged: { number: number; at: Date; printedName: string; counts: boolean; current: boolean; dueOn: string | null } | null }[];
   bench: null | {
     siteId: string; timeZone: string; code: string; name: string; siteCode: string; supply: string; protection: string; nextInspectionOn: string; active: boolean;
     flags: string[]; latestCheck: { at: Date; passed: boolean; notes: string | null; personName: string; files: FileMeta[] } | null;

@@ -1,4 +1,5 @@
 import type { Deps } from '../deps.js';
+import { rereadRuleFor } from '../../shared/procedures/reread-rule.js';
 import { subjectOf, type Actor, type AppAbility } from '../../shared/abilities.js';
 import { ACKNOWLEDGEMENT_MEANING, type AckState, type AckTableQuery } from '../../shared/schemas/procedures.js';
 import type { AckRowView } from '../../shared/procedures/reports.js';
@@ -93,7 +94,7 @@ export function makeAcknowledgements(deps: Deps, signatures: Signatures) {
       const assess = n.changeClass === 're-assess'
         ? '\nThis change also needs a new assessment: practicals done against earlier versions no longer count toward authorisations that need one. Arrange a supervised practical with an assessor.\n'
         : '';
-      const text = `Hello ${n.name},\n\nVersion ${n.number} of ${n.code} "${n.title}" is now in force. It changes what you acknowledged before, so please read it and acknowledge it again by ${n.dueOn}.\n${assess}\nOpen it here:\n${link}\n\nUntil you have read it, do not rely on the earlier version for live work.\n`;
+      const text = `Hello ${n.name},\n\nVersion ${n.number} of ${n.code} "${n.title}" is now in force. It changes what you acknowledged before, so please read it and acknowledge it again by ${n.dueOn}.\n${assess}\nOpen it here:\n${link}\n\n${rereadRuleFor(null, n.number, n.dueOn)}\n`;
       return { key: `reread:${n.versionId}:${n.userId}`, to: n.email, subject: `Re-read ${n.code} version ${n.number} by ${n.dueOn}`, text, kind: `procedure-${n.changeClass}` };
     }));
   }

@@ -38,7 +38,7 @@ describe('the sign-in rate limit is kept in the database', () => {
     for (let i = 0; i < LIMIT; i++) expect((await guess(i)).body.error.code).toBe('bad_credentials');
     const over = await guess(LIMIT);
     expect(over.status).toBe(429);
-    expect(over.body.error).toEqual({ code: 'rate_limited', message: 'Too many attempts from this address; wait 5 minute(s) and try again.' });
+    expect(over.body.error).toEqual({ code: 'rate_limited', message: 'Too many attempts from this address; wait 5 minute(s) and try again.', requestId: over.headers['x-request-id'] });
     expect((await guess(LIMIT + 1)).status).toBe(429);
     // Another address has its own count.
     expect((await guess(6, '203.0.113.7')).status).toBe(401);

@@ -1,12 +1,14 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { startBrowserApp } from '../support/browser.js';
+import { PUBLIC_URL } from '../support/app.js';
 import { DEMO, DEMO_PASSWORD, signIn } from '../support/people.js';
 import { publishRecordsProcedure } from '../support/records.js';
 
 let b: Awaited<ReturnType<typeof startBrowserApp>>;
 let proc: Awaited<ReturnType<typeof publishRecordsProcedure>>;
 beforeAll(async () => {
-  b = await startBrowserApp();
+  // The API agents below send Origin: PUBLIC_URL of the test app; the browser's origin is the app's own.
+  b = await startBrowserApp({ env: { EXTRA_ORIGINS: PUBLIC_URL } });
   proc = await publishRecordsProcedure(b);
 });
 
@@ -30,7 +32,7 @@ describe('a practical recorded at the bench in the browser', () => {
 
     await page.waitForURL(/\/practicals\/[0-9a-f-]{36}$/);
     await page.getByRole('heading', { name: /^Practical: / }).waitFor();
-    expect(await page.getByRole('heading', { name: 'Mains voltage can kill' }).isVisible()).toBe(true);
+    expect(await page.getByRole('note').filter({ hasText: 'Live parts: work to the procedure; stop at each hold point.' }).isVisible()).toBe(true);
     expect(await page.getByText('HOLD POINT 1', { exact: true }).isVisible()).toBe(true);
     await page.getByRole('button', { name: 'Compact list' }).click();
     // The site's instruments arrive after the practical itself.

@@ -7,7 +7,9 @@ export const APP_ROLE = 'breakover_app';
  * would let any injected SQL take back every right (RESET ROLE), so the server does not start on one.
  */
 export async function assertAppLogin(url: string): Promise<void> {
-  const client = new pg.Client({ connectionString: url });
+  const client = new pg.Client({ connectionString: url, connectionTimeoutMillis: 5_000 });
+  // A connection dropped mid-check also rejects the query; unheard, the 'error' event would end the process.
+  client.on('error', () => undefined);
   await client.connect();
   try {
     const { rows } = await client.query<{ login: string; elevated: boolean; memberships: number }>(

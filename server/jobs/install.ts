@@ -19,6 +19,7 @@ export async function installJobQueues(ownerUrl: string): Promise<void> {
     await boss.stop({ graceful: false });
   }
   const client = new pg.Client({ connectionString: ownerUrl });
+  client.on('error', () => undefined); // a dropped connection also rejects the pending query, which says it
   await client.connect();
   try {
     await client.query(`grant usage on schema ${JOBS_SCHEMA} to breakover_app;

@@ -11,6 +11,8 @@ import type { makeRowEvidence } from '../register/register.evidence.js';
 import { acknowledgementsBy, practicalsBy, versionsInForceAt } from './incident.repository.js';
 import { benchThen, instrumentsThen } from './equipment.then.js';
 import { rereadDeadlinesAt } from './reread.repository.js';
+import { gatherRecords } from './records.then.js';
+import { findUserById } from '../people/people.repository.js';
 import { endOfLocalDay } from '../../shared/time.js';
 import type { IncidentPack, PackFile } from './incident.types.js';
 
@@ -47,10 +49,12 @@ export async function gatherPack(deps: Deps, rows: ReturnType<typeof makeRowEvid
   const usedInstruments = [...new Set(practicalRows.flatMap((p) => p.practical.instrumentIds))];
   const instruments = await instrumentsThen(db, bench?.siteId ?? null, usedInstruments, at, bench?.timeZone ?? person.timeZone);
 
-  const files: PackFile[] = [...recordFiles, ...(bench?.latestCheck?.files ?? [])];
+  const account = (await findUserById(db, person.id))!;
+  const records = await gatherRecords(db, at, person.id, account.createdAt, practicalRows.map((p) => p.practical), authorisations);
+  const files: PackFile[] = [...recordFiles, ...(bench?.latestCheck?.files ?? []), ...records.signoffs.flatMap((s) => s.files)];
   for (const a of authorisations) for (const b of a.basis) for (const e of b.evidence) for (const f of e.files) files.push({ ...f, entity: e.type, entityId: e.id });
   return {
-    at, authorisations, procedures, bench, instruments,
+    at, authorisations, procedures, bench, instruments, records,
     practicals: practicalRows.map(({ practical: p, assessorName }) => ({
       id: p.id, heldAt: p.heldAt, assessorName, restedOn: restedOn.has(p.id), files: filesFor('practical', p.id),
       outcome: p.assessedAt && p.assessedAt <= at ? (p.outcome === 'competent' ? 'Competent' : 'Not yet competent') : 'Not yet assessed at that moment',

@@ -2,6 +2,7 @@ import { formatInZone } from '../../shared/time.js';
 import { ALERT, MUTED, PdfWriter, WARN } from '../pdf/pdf-document.js';
 import type { IncidentPack } from './incident.types.js';
 import { earlierAckState } from '../../shared/procedures/reread-rule.js';
+import { writeRecordedLater, writeRecordSections } from './incident.pdf.records.js';
 
 /** The pack as one PDF: what stood at the moment, section by section, with the files listed by hash. */
 export async function renderIncidentPdf(p: IncidentPack): Promise<Uint8Array> {
@@ -15,6 +16,7 @@ export async function renderIncidentPdf(p: IncidentPack): Promise<Uint8Array> {
   if (p.note) pdf.text(`Note: ${p.note}`, { size: 10 });
   pdf.rule();
 
+  writeRecordedLater(pdf, p.records, p.at, p.person.name, when);
   pdf.heading('Authorisations and their states');
   if (!p.authorisations.length) pdf.text('None held at that moment.', { color: ALERT });
   for (const a of p.authorisations) {
@@ -52,6 +54,8 @@ export async function renderIncidentPdf(p: IncidentPack): Promise<Uint8Array> {
   pdf.heading('Supervised practicals');
   if (!p.practicals.length) pdf.text('None held by then.', { color: MUTED });
   for (const x of p.practicals) pdf.text(`${when(x.heldAt)}: ${x.outcome}, assessed by ${x.assessorName}${x.restedOn ? ' (an authorisation rested on it)' : ''}`, { size: 9.5 });
+
+  writeRecordSections(pdf, p.records, when);
 
   pdf.heading('External certificates');
   if (!p.certificates.length) pdf.text('None uploaded by then.', { color: MUTED });

@@ -25,8 +25,7 @@ export function makeIncidentService(deps: Deps) {
     const person = await findPerson(db, body.personId);
     if (!person) throw unprocessable('personId: no such person', { personId: 'no such person' });
     if (!ability.can('read', subjectOf('Register', { siteId: person.siteId, personId: person.id }))) throw forbidden('You may not make a pack about this person.');
-    const user = (await findUserById(db, person.id))!;
-    if (user.createdAt > m.at) throw unprocessable(`at: ${person.name} was not yet on record at that moment`, { at: 'before this person was on record' });
+    // A moment before the account is answered too: the register holds paper-recorded facts for it, and the pack says they were recorded later.
     const parts = await gatherPack(deps, rows, ability, person, m.at, body.benchId);
     if (parts.bench && !ability.can('read', subjectOf('Bench', { siteId: parts.bench.siteId }))) throw forbidden('You may not see that bench.');
     const [me, site] = await Promise.all([findUserById(db, actor.id), findSite(db, person.siteId)]);

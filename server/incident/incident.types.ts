@@ -1,5 +1,6 @@
 import type { RowEvidenceView } from '../../shared/register/views.js';
 import type { FileMeta } from '../register/evidence.repository.js';
+import type { PackRecords } from './records.then.js';
 
 /** Everything an incident pack holds, frozen at one moment; the PDF and the ZIP are made from this. */
 export interface IncidentPack {
@@ -17,6 +18,8 @@ export interface IncidentPack {
   instruments: { kind: string; make: string; model: string; serial: string; rating: string; calibrationDueOn: string; flags: string[] }[];
   practicals: { id: string; heldAt: Date; assessorName: string; outcome: string; restedOn: boolean; files: FileMeta[] }[];
   certificates: { id: string; kind: string; issuer: string; reference: string; issuedOn: string; expiresOn: string; stateThen: string; files: FileMeta[] }[];
+  /** Sign-offs, how each practical was set up, and what was recorded later than the moment. */
+  records: PackRecords;
   /** Every file behind the records above, once each: what goes into the ZIP beside the PDF. */
   files: PackFile[];
 }

@@ -102,10 +102,10 @@ describe('the incident pack', () => {
     expect(entry.pdfSha256).toBe(manifest.files[0].sha256);
   });
 
-  it('when the bench or the person was not on record yet, or the moment is to come, then 422 naming the field; a technician is refused', async () => {
+  it('when the bench was not on record yet, or the moment is to come, then 422 naming the field; a technician is refused', async () => {
     const early = await pack({ personId: tech.id, at: '2026-03-01T12:00:00Z', benchId: bench.id });
     expect(early.status).toBe(422);
-    expect(JSON.parse(early.body.toString()).error.fields).toHaveProperty('at');
+    expect(JSON.parse(early.body.toString()).error.fields).toHaveProperty('benchId');
     const soon = await pack({ personId: tech.id, at: '2027-01-01T00:00:00Z' });
     expect(JSON.parse(soon.body.toString()).error.fields).toHaveProperty('at');
     const noBench = await pack({ personId: tech.id, at: MOMENT, benchId: '00000000-0000-4000-8000-000000000000' });

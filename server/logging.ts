@@ -43,7 +43,8 @@ export function requestLogger(logger: Logger) {
       res.setHeader('X-Request-Id', id);
       return id;
     },
-    customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
+    // A 503 while the database is away is expected and logged once as an outage; a warning per request is enough.
+    customLogLevel: (_req, res, err) => (res.statusCode === 503 ? 'warn' : err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
     customSuccessMessage: (req, res, ms) => `${req.method} ${scrubUrl(req.url ?? '')} ${res.statusCode} ${Math.round(ms)} ms`,
     customErrorMessage: (req, res) => `${req.method} ${scrubUrl(req.url ?? '')} ${res.statusCode}`,
     serializers: {

@@ -15,6 +15,8 @@ import { gatherRecords } from './records.then.js';
 import { findUserById } from '../people/people.repository.js';
 import { endOfLocalDay } from '../../shared/time.js';
 import type { IncidentPack, PackFile } from './incident.types.js';
+import { readingsThen } from './readings.then.js';
+import { formatInZone } from '../../shared/time.js';
 
 type Parts = Omit<IncidentPack, 'producedAt' | 'producedBy' | 'note' | 'person'>;
 
@@ -49,6 +51,7 @@ export async function gatherPack(deps: Deps, rows: ReturnType<typeof makeRowEvid
   const usedInstruments = [...new Set(practicalRows.flatMap((p) => p.practical.instrumentIds))];
   const instruments = await instrumentsThen(db, bench?.siteId ?? null, usedInstruments, at, bench?.timeZone ?? person.timeZone);
 
+  const readings = await readingsThen(db, practicalRows.map((p) => p.practical.id), at, (d) => formatInZone(d, person.timeZone));
   const account = (await findUserById(db, person.id))!;
   const records = await gatherRecords(db, at, person.id, account.createdAt, practicalRows.map((p) => p.practical), authorisations);
   const files: PackFile[] = [...recordFiles, ...(bench?.latestCheck?.files ?? []), ...records.signoffs.flatMap((s) => s.files)];
@@ -56,7 +59,7 @@ export async function gatherPack(deps: Deps, rows: ReturnType<typeof makeRowEvid
   return {
     at, authorisations, procedures, bench, instruments, records,
     practicals: practicalRows.map(({ practical: p, assessorName }) => ({
-      id: p.id, heldAt: p.heldAt, assessorName, restedOn: restedOn.has(p.id), files: filesFor('practical', p.id),
+      id: p.id, heldAt: p.heldAt, assessorName, restedOn: restedOn.has(p.id), files: filesFor('practical', p.id), readings: readings.get(p.id) ?? [],
       outcome: p.assessedAt && p.assessedAt <= at ? (p.outcome === 'competent' ? 'Competent' : 'Not yet competent') : 'Not yet assessed at that moment',
     })),
     certificates: shownCerts.map((c) => ({

@@ -53,7 +53,11 @@ export async function renderIncidentPdf(p: IncidentPack): Promise<Uint8Array> {
 
   pdf.heading('Supervised practicals');
   if (!p.practicals.length) pdf.text('None held by then.', { color: MUTED });
-  for (const x of p.practicals) pdf.text(`${when(x.heldAt)}: ${x.outcome}, assessed by ${x.assessorName}${x.restedOn ? ' (an authorisation rested on it)' : ''}`, { size: 9.5 });
+  for (const x of p.practicals) {
+    pdf.text(`${when(x.heldAt)}: ${x.outcome}, assessed by ${x.assessorName}${x.restedOn ? ' (an authorisation rested on it)' : ''}`, { size: 9.5, gapAfter: 0 });
+    for (const r of x.readings) pdf.text(r, { size: 8.5, indent: 10, gapAfter: 0, color: / failed/.test(r) ? ALERT : undefined });
+    pdf.text('', { size: 4 });
+  }
 
   writeRecordSections(pdf, p.records, when);
 

@@ -16,7 +16,9 @@ export interface IncidentPack {
     flags: string[]; latestCheck: { at: Date; passed: boolean; notes: string | null; personName: string; files: FileMeta[] } | null;
   };
   instruments: { kind: string; make: string; model: string; serial: string; rating: string; calibrationDueOn: string; flags: string[] }[];
-  practicals: { id: string; heldAt: Date; assessorName: string; outcome: string; restedOn: boolean; files: FileMeta[] }[];
+  practicals: { id: string; heldAt: Date; assessorName: string; outcome: string; restedOn: boolean; files: FileMeta[];
+    /** Every reading taken by then, one line each (failed ones and those taken again included). */
+    readings: string[] }[];
   certificates: { id: string; kind: string; issuer: string; reference: string; issuedOn: string; expiresOn: string; stateThen: string; files: FileMeta[] }[];
   /** Sign-offs, how each practical was set up, and what was recorded later than the moment. */
   records: PackRecords;

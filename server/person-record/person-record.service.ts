@@ -18,6 +18,7 @@ import { listPracticals } from '../practicals/practicals.list.repository.js';
 import { practicalAccessColumns } from '../practicals/practicals.repository.js';
 import { acknowledgementsBy } from '../incident/incident.repository.js';
 import { periodsOfHolder, practicalsOf } from './person-record.repository.js';
+import { readingsOf } from '../practicals/attempts.present.js';
 
 type Needs = { people: ReturnType<typeof makePeopleService>; authorisations: AuthorisationsFeature };
 
@@ -44,6 +45,7 @@ export function makePersonRecordService(deps: Deps, s: Needs) {
     const people = [...events.map((e) => e.actorId), ...periods.map((p) => p.issuedBy), ...certs.map((c) => c.reviewedBy)].filter((x): x is string => !!x);
     const [names, sigs] = await Promise.all([namesOf(db, people), signaturesByIds(db, events.map((e) => e.signatureId).filter((x): x is string => !!x))]);
     const tz = site?.timeZone ?? 'UTC';
+    const readings = await readingsOf(db, practicals.items.map((r) => r.id), now);
     return {
       person: { ...detail, site: { id: user.siteId, code: site?.code ?? '', name: site?.name ?? '', timeZone: tz } },
       authorisations: list.items.map((a) => ({
@@ -54,7 +56,9 @@ export function makePersonRecordService(deps: Deps, s: Needs) {
       certificates: certs.map((c) => presentCertificate(c, { holderName: user.name, siteName: site?.name ?? '', reviewerName: c.reviewedBy ? (names.get(c.reviewedBy) ?? null) : null }, now)),
       acknowledgements: acks.map((a) => ({ procedureCode: a.code, versionNumber: a.versionNumber, acknowledgedAt: a.acknowledgedAt.toISOString(), printedName: a.printedName })),
       signoffs: signoffs.items.map((r) => ({ ...r, kind: r.kind as SignoffRowView['kind'], status: r.status as SignoffRowView['status'], submittedAt: r.submittedAt?.toISOString() ?? null, updatedAt: r.updatedAt.toISOString() })),
-      practicals: practicals.items.map((r) => ({ ...r, status: r.status as PracticalRowView['status'], outcome: r.outcome as PracticalRowView['outcome'], heldAt: r.heldAt.toISOString() })),
+      practicals: practicals.items.map((r) => ({
+        ...r, status: r.status as PracticalRowView['status'], outcome: r.outcome as PracticalRowView['outcome'], heldAt: r.heldAt.toISOString(), readings: readings.get(r.id) ?? [],
+      })),
     };
   }
 

@@ -3,6 +3,7 @@ import { subjectOf, type Actor, type AppAbility } from '../../shared/abilities.j
 import { conflict, forbidden } from '../errors.js';
 import type { Signatures } from '../signatures/signatures.service.js';
 import * as repo from './practicals.repository.js';
+import { copyAttempts } from './attempts.repository.js';
 import { readablePractical } from './practicals.access.js';
 import { practicalView } from './practicals.views.js';
 
@@ -32,6 +33,7 @@ export function makePracticalCorrections(deps: Deps, signatures: Signatures) {
         crossSiteReason: old.crossSiteReason, typeAcDecisionId: old.typeAcDecisionId,
       });
       await repo.copyRecord(tx, old.id, row.id);
+      await copyAttempts(tx, old.id, row.id);
       await audit(tx, { actorId: actor.id, action: 'practical.correction_opened', entity: 'practical', entityId: row.id, newValues: { correctsId: old.id, reason } });
       return row;
     });

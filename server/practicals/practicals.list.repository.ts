@@ -22,6 +22,8 @@ export interface PracticalFilter {
 }
 
 const failed = sql<number>`(select count(*)::int from practical_entries e where e.practical_id = ${practicals.id} and e.verdict = 'fail')`;
+// Every failed reading, also those taken again since: the list keeps the trace of a failure.
+const failedAttempts = sql<number>`(select count(*)::int from practical_attempts a where a.practical_id = ${practicals.id} and a.verdict = 'fail')`;
 
 export async function listPracticals(db: Executor, f: PracticalFilter) {
   const conds: SQL[] = [f.access];
@@ -36,7 +38,7 @@ export async function listPracticals(db: Executor, f: PracticalFilter) {
   const items = await db
     .select({
       id: practicals.id, status: practicals.status, outcome: practicals.outcome, technicianName: technician.name, assessorName: assessor.name,
-      benchCode: benches.code, procedureCode: procedures.code, versionNumber: procedureVersions.number, failed, heldAt: practicals.heldAt,
+      benchCode: benches.code, procedureCode: procedures.code, versionNumber: procedureVersions.number, failed, failedAttempts, heldAt: practicals.heldAt,
       correctsId: practicals.correctsId, correctedById: correction.id,
     })
     .from(practicals)

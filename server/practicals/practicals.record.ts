@@ -10,6 +10,7 @@ import { buildEntry } from '../records/entry.js';
 import * as repo from './practicals.repository.js';
 import { recordablePractical } from './practicals.access.js';
 import { refuseUnlessStepOpen } from './practicals.order.js';
+import { keepAttempt } from './attempts.js';
 import { practicalView } from './practicals.views.js';
 
 /** What the assessor records at the bench, each entry saved as it is made. */
@@ -32,10 +33,12 @@ export function makePracticalRecording(deps: Deps, signatures: Signatures, usabi
     await db.transaction(async (tx) => {
       const locked = await recordablePractical(tx, ability, id, true);
       await refuseUnlessStepOpen(tx, id, p.versionId, item.stepKey);
-      await repo.saveEntry(tx, id, itemId, { ...fields, recordedAt: now, seq: await repo.nextSeq(tx, id) });
+      const seq = await repo.nextSeq(tx, id);
+      if (fields.kind === 'measurement') await keepAttempt(tx, { id, itemId, seq, fields, reason: body.reason ?? null, now, actorId: actor.id });
+      await repo.saveEntry(tx, id, itemId, { ...fields, recordedAt: now, seq });
       const instrumentIds = fields.instrumentId && !locked.instrumentIds.includes(fields.instrumentId) ? [...locked.instrumentIds, fields.instrumentId] : locked.instrumentIds;
       await repo.updatePractical(tx, id, { instrumentIds, updatedAt: now });
-      await audit(tx, { actorId: actor.id, action: 'practical.entry_saved', entity: 'practical', entityId: id, newValues: { itemId, ...fields, recordedAt: undefined } });
+      await audit(tx, { actorId: actor.id, action: 'practical.entry_saved', entity: 'practical', entityId: id, newValues: { itemId, ...fields, recordedAt: undefined, reason: body.reason } });
     });
     return view(id);
   }

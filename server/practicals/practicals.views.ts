@@ -11,6 +11,8 @@ import { presentItems } from '../records/items.present.js';
 import { instrumentLabels, peopleNames } from '../records/records.repository.js';
 import { typeAcDecision } from '../benches/type-ac.repository.js';
 import * as repo from './practicals.repository.js';
+import { attemptsOf } from './attempts.repository.js';
+import { withAttempts } from './attempts.present.js';
 
 const iso = (d: Date | null) => d?.toISOString() ?? null;
 
@@ -22,11 +24,14 @@ export async function practicalView(db: Executor, signatures: Signatures, p: rep
     repo.benchOf(db, p.benchId), p.scopeId ? repo.scopeBrief(db, p.scopeId) : undefined, repo.correctionOf(db, p.id),
     p.correctsId ? repo.findPractical(db, p.correctsId) : undefined, repo.personBrief(db, p.technicianId),
   ]);
+  const tries = await attemptsOf(db, p.id);
   const decision = p.typeAcDecisionId ? await typeAcDecision(db, p.typeAcDecisionId) : null;
-  const names = await peopleNames(db, [p.technicianId, p.assessorId, ...entries.map((e) => e.recordedBy), ...witnessed.map((w) => w.witnessedBy)]);
-  const instruments = await instrumentLabels(db, [...new Set([...p.instrumentIds, ...entries.flatMap((e) => (e.instrumentId ? [e.instrumentId] : []))])]);
+  const names = await peopleNames(db, [p.technicianId, p.assessorId, ...entries.map((e) => e.recordedBy), ...witnessed.map((w) => w.witnessedBy), ...tries.map((a) => a.recordedBy)]);
+  const instruments = await instrumentLabels(db, [...new Set([...p.instrumentIds, ...entries.flatMap((e) => (e.instrumentId ? [e.instrumentId] : [])), ...tries.map((a) => a.instrumentId)])]);
   const expectations = p.expectations as Expectations;
-  const { items, progress } = presentItems(checklist, entries, expectations.quantities, { names, instruments });
+  const listed = presentItems(checklist, entries, expectations.quantities, { names, instruments });
+  const items = withAttempts(listed.items, tries, { names, instruments });
+  const { progress } = listed;
   const byKey = new Map(witnessed.map((w) => [w.stepKey, w]));
   const holds = steps.map((s, position) => ({ ...s, position })).filter((s) => s.holdPoint);
   const holdPoints: HoldPointView[] = holds.map((s, i) => {

@@ -12,6 +12,7 @@ import { insertEvidence } from '../evidence/evidence.repository.js';
 import { holdPointsOf, type RecordChecklist } from '../records/checklist.js';
 import type { EntryFields } from '../records/records.repository.js';
 import * as repo from '../practicals/practicals.repository.js';
+import { keepAttempt } from '../practicals/attempts.js';
 import { seedSign, tickEntry } from './seed-records.js';
 import { scopeCapturePng } from './seed-scope-capture.js';
 
@@ -80,7 +81,9 @@ async function one(tx: Executor, audit: Audit, p: One) {
     } else if (item.kind === 'evidence') fields = { ...fields, kind: 'evidence', checked: null, evidenceId: ev.id };
     else if (item.kind === 'text') fields = { ...fields, kind: 'text', checked: null, text: p.outcome === 'competent' ? 'Methodical; kept the test area clear.' : 'Did not check the setting before reading.' };
     else if (item.kind !== 'tick') throw new Error(`seed: no demo entry for "${item.prompt}"`);
-    await repo.saveEntry(tx, row.id, item.id, { ...fields, seq: holds.length + i + 1 });
+    const seq = holds.length + i + 1;
+    if (fields.kind === 'measurement') await keepAttempt(tx, { id: row.id, itemId: item.id, seq, fields, reason: null, now: at, actorId: p.assessorId });
+    await repo.saveEntry(tx, row.id, item.id, { ...fields, seq });
   }
   const assessed = await seedSign(tx, p.assessorId, ASSESSED_MEANING, 'practical', row.id, minute(45));
   await repo.updatePractical(tx, row.id, { status: 'assessed', outcome: p.outcome, outcomeComment: p.comment, assessedAt: minute(45), assessorSignatureId: assessed.id, updatedAt: minute(45) });

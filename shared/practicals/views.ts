@@ -27,6 +27,21 @@ export interface EntryView {
   seq: number | null;
 }
 
+/** One reading of a measurement item of a practical; a re-recorded one stays, with the reason it was taken again. */
+export interface AttemptView {
+  seq: number;
+  value: number | null;
+  didNotTrip: boolean;
+  unit: string;
+  instrument: string;
+  recordedAt: string;
+  recordedByName: string;
+  verdict: 'pass' | 'fail' | null;
+  expected: number | null;
+  tolerance: string | null;
+  reason: string | null;
+}
+
 export interface RecordItemView {
   id: string;
   position: number;
@@ -43,6 +58,8 @@ export interface RecordItemView {
   tolerance: string | null;
   noExpectation: boolean;
   entry: EntryView | null;
+  /** Practicals: every reading of a measurement item, in order (the last is the entry). */
+  attempts?: AttemptView[];
   /** What is still missing or failing, in words; null when the item is complete. */
   problem: string | null;
 }
@@ -153,6 +170,8 @@ export interface PracticalRowView {
   procedureCode: string;
   versionNumber: number;
   failed: number;
+  /** Readings that failed, counting those taken again since (every attempt stays in the record). */
+  failedAttempts: number;
   heldAt: string;
   correctsId: string | null;
   correctedById: string | null;

@@ -148,5 +148,6 @@ export interface PersonRecordView {
   certificates: import('../authorisations/views.js').CertificateView[];
   acknowledgements: { procedureCode: string; versionNumber: number; acknowledgedAt: string; printedName: string }[];
   signoffs: import('../practicals/views.js').SignoffRowView[];
-  practicals: import('../practicals/views.js').PracticalRowView[];
+  /** Each practical with every reading taken in it, in order (failed ones and those taken again included). */
+  practicals: (import('../practicals/views.js').PracticalRowView & { readings: (import('../practicals/views.js').AttemptView & { prompt: string })[] })[];
 }

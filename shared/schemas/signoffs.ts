@@ -20,6 +20,8 @@ export const entryBody = z.object({
   /** Only where no expectation could be computed: the assessor's own judgement. */
   assessorVerdict: z.enum(['pass', 'fail'], { message: 'say whether the reading is acceptable' }).optional(),
   note: paragraph().max(1000, 'use at most 1000 characters').optional(),
+  /** Practicals: why a reading is taken again (every attempt stays in the record). */
+  reason: line().min(3, 'say why the reading is taken again (at least 3 characters)').max(300, 'use at most 300 characters').optional(),
 }).strict();
 export type EntryBody = z.infer<typeof entryBody>;
 

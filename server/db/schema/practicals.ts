@@ -154,3 +154,28 @@ export const practicalHoldPoints = pgTable('practical_hold_points', {
   uniqueIndex('practical_hold_points_step_uq').on(t.practicalId, t.stepKey),
   uniqueIndex('practical_hold_points_position_uq').on(t.practicalId, t.position),
 ]);
+
+/** Every reading taken for a measurement item of a practical, in order: a re-recorded one stays, with the reason. */
+export const practicalAttempts = pgTable('practical_attempts', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  practicalId: uuid('practical_id').notNull().references(() => practicals.id),
+  itemId: uuid('item_id').notNull().references(() => checklistItems.id),
+  seq: integer('seq').notNull(),
+  value: doublePrecision('value'),
+  didNotTrip: boolean('did_not_trip').notNull(),
+  unit: text('unit').notNull(),
+  instrumentId: uuid('instrument_id').notNull().references(() => instruments.id),
+  expected: doublePrecision('expected'),
+  tolerance: text('tolerance'),
+  verdict: text('verdict'),
+  judgedBy: text('judged_by'),
+  // Why it was taken again; null for the first attempt.
+  reason: text('reason'),
+  recordedAt: ts('recorded_at').notNull(),
+  recordedBy: uuid('recorded_by').notNull().references(() => users.id),
+}, (t) => [
+  uniqueIndex('practical_attempts_seq_uq').on(t.practicalId, t.seq),
+  index('practical_attempts_item_idx').on(t.practicalId, t.itemId, t.seq),
+  check('practical_attempts_verdict_ck', sql`${t.verdict} is null or ${t.verdict} in ('pass', 'fail')`),
+  check('practical_attempts_value_ck', sql`(${t.value} is not null) <> ${t.didNotTrip}`),
+]);

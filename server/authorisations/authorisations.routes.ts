@@ -1,4 +1,5 @@
 import { route, type RouteDef } from '../routing.js';
+import { certificateCheckBody } from '../../shared/schemas/certificate-check.js';
 import { uuidParam } from '../../shared/schemas/common.js';
 import {
   actionBody, authorisationsQuery, certificateBody, certificatesQuery, codeParam, dueQuery, importBody, periodQuery, personParam, personScopeParams,
@@ -52,8 +53,8 @@ export function authorisationRoutes(f: AuthorisationsFeature, scopeSaved: () => 
     route({ method: 'get', path: '/certificates', access: ['read', 'Certificate'], query: certificatesQuery, handler: async ({ ability, query }) => f.certificates.list(ability, query) }),
     route({ method: 'post', path: '/certificates', access: ['create', 'Certificate'], body: certificateBody, status: 201, handler: async ({ actor, ability, body }) => f.certificates.submit(actor!, ability, body) }),
     route({
-      method: 'post', path: '/certificates/:id/verify', access: ['update', 'Certificate'], params: uuidParam, body: signBody,
-      handler: async ({ actor, ability, params, body }) => f.certificates.verify(actor!, ability, params.id, body.password),
+      method: 'post', path: '/certificates/:id/verify', access: ['update', 'Certificate'], params: uuidParam, body: certificateCheckBody,
+      handler: async ({ actor, ability, params, body }) => f.certificates.verify(actor!, ability, params.id, body),
     }),
     route({
       method: 'post', path: '/certificates/:id/reject', access: ['update', 'Certificate'], params: uuidParam, body: rejectBody,

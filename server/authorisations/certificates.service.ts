@@ -2,6 +2,7 @@ import type { Deps } from '../deps.js';
 import { subjectOf, type Actor, type AppAbility } from '../../shared/abilities.js';
 import { VERIFY_CERTIFICATE_MEANING } from '../../shared/authorisations/kinds.js';
 import type { CertificateBody, CertificatesQuery } from '../../shared/schemas/authorisations.js';
+import type { CertificateCheckBody } from '../../shared/schemas/certificate-check.js';
 import type { Signatures } from '../signatures/signatures.service.js';
 import { accessibleWhere } from '../authz/casl-sql.js';
 import { conflict, forbidden, notFound, unprocessable } from '../errors.js';
@@ -61,19 +62,35 @@ export function makeCertificatesService(deps: Deps, signatures: Signatures) {
   }
 
   /** A manager checks the certificate against the original and signs; what rests on it is decided in the same transaction. */
-  async function verify(actor: Actor, ability: AppAbility, id: string, password: string) {
+  async function verify(actor: Actor, ability: AppAbility, id: string, body: CertificateCheckBody) {
     const cert = await reviewable(actor, ability, id);
-    const signer = await signatures.verify(actor.id, password);
+    const how = await howChecked(cert, body);
+    const signer = await signatures.verify(actor.id, body.password);
     const row = await db.transaction(async (tx) => {
       await lockPerson(tx, cert.holderId);
       if ((await repo.findCertificate(tx, id, true))?.status !== 'submitted') throw conflict('This certificate was checked a moment ago.');
       const sig = await signatures.record(tx, signer, { meaning: VERIFY_CERTIFICATE_MEANING, entity: 'external_certificate', entityId: id });
-      const updated = await repo.updateCertificate(tx, id, { status: 'verified', reviewedBy: actor.id, reviewedAt: sig.signedAt, signatureId: sig.id });
-      await audit(tx, { actorId: actor.id, action: 'certificate.verified', entity: 'external_certificate', entityId: id, oldValues: { status: 'submitted' }, newValues: { status: 'verified', signatureId: sig.id } });
+      const updated = await repo.updateCertificate(tx, id, { status: 'verified', reviewedBy: actor.id, reviewedAt: sig.signedAt, signatureId: sig.id, ...how });
+      await audit(tx, { actorId: actor.id, action: 'certificate.verified', entity: 'external_certificate', entityId: id, oldValues: { status: 'submitted' }, newValues: { status: 'verified', signatureId: sig.id, ...how } });
       await reevaluatePerson(tx, cert.holderId, { ...deps, actorId: actor.id });
       return updated;
     });
     return view(row);
+  }
+
+  /** A scan on file, or the original seen in person (where, on a day not in the future); refused naming the field otherwise. */
+  async function howChecked(cert: repo.CertificateRow, body: CertificateCheckBody) {
+    if (!body.sawOriginal) {
+      if (cert.evidenceId) return { checkedHow: 'scan', originalSeenWhere: null, originalSeenOn: null };
+      throw unprocessable('sawOriginal: no scan is on file: attach one, or state that you saw the original in person, where and when', { sawOriginal: 'no scan is on file: state that you saw the original in person' });
+    }
+    if (!body.sawOriginalWhere) throw unprocessable('sawOriginalWhere: say where you saw the original', { sawOriginalWhere: 'say where you saw the original' });
+    const holder = (await findPerson(db, cert.holderId))!;
+    const today = localDate(clock.now(), holder.timeZone);
+    const on = body.sawOriginalOn ?? today;
+    if (on > today) throw unprocessable('sawOriginalOn: cannot be in the future', { sawOriginalOn: 'cannot be in the future' });
+    if (on < cert.issuedOn) throw unprocessable('sawOriginalOn: cannot be before the certificate was issued', { sawOriginalOn: 'cannot be before the certificate was issued' });
+    return { checkedHow: 'original_seen', originalSeenWhere: body.sawOriginalWhere, originalSeenOn: on };
   }
 
   async function reject(actor: Actor, ability: AppAbility, id: string, reason: string) {

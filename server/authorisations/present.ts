@@ -66,6 +66,7 @@ export function presentCertificate(c: CertificateRow, extra: { holderName: strin
     id: c.id, holderId: c.holderId, holderName: extra.holderName, siteName: extra.siteName, kind, kindLabel: CERTIFICATE_KIND_LABELS[kind] ?? kind,
     issuer: c.issuer, reference: c.reference, issuedOn: c.issuedOn, expiresOn: c.expiresOn, expired: c.validUntil <= now, status: c.status as CertificateView['status'],
     submittedAt: c.submittedAt.toISOString(), reviewedAt: c.reviewedAt?.toISOString() ?? null, reviewerName: extra.reviewerName,
-    rejectionReason: c.rejectionReason, evidenceId: c.evidenceId,
+    rejectionReason: c.rejectionReason, evidenceId: c.evidenceId, checkedHow: c.checkedHow as CertificateView['checkedHow'],
+    originalSeen: c.originalSeenWhere && c.originalSeenOn ? { where: c.originalSeenWhere, on: c.originalSeenOn } : null,
   };
 }

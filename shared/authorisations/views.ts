@@ -149,6 +149,9 @@ export interface CertificateView {
   reviewerName: string | null;
   rejectionReason: string | null;
   evidenceId: string | null;
+  /** How the manager checked it: against the scan, or the original seen in person; null before this was asked. */
+  checkedHow: 'scan' | 'original_seen' | null;
+  originalSeen: { where: string; on: string } | null;
 }
 
 export interface MineView {

@@ -26,7 +26,8 @@ export const authorisationsApi = {
   eligibility: (personId: string, scopeId?: string) => api.get<EligibilityView>(`/eligibility/${personId}${scopeId ? `/${scopeId}` : ''}`),
   certificates: (query: { holderId?: string; siteId?: string; status?: string; page: number; pageSize: number }) => api.get<Page<CertificateView>>('/certificates', { ...query }),
   submitCertificate: (body: Omit<CertificateBody, 'reference'> & { reference?: string }) => api.post<CertificateView>('/certificates', body),
-  verifyCertificate: (id: string, password: string) => api.post<CertificateView>(`/certificates/${id}/verify`, { password }),
+  verifyCertificate: (id: string, body: { password: string; sawOriginal: boolean; sawOriginalWhere?: string; sawOriginalOn?: string }) =>
+    api.post<CertificateView>(`/certificates/${id}/verify`, body),
   rejectCertificate: (id: string, reason: string) => api.post<CertificateView>(`/certificates/${id}/reject`, { reason }),
   verify: (code: string) => api.get<VerificationView>(`/verify/${encodeURIComponent(code)}`, undefined, { allowUnauthorized: true }),
 };

@@ -1,7 +1,7 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { makeTestApp, type TestApp } from '../support/app.js';
 import { DEMO, DEMO_PASSWORD, signIn } from '../support/people.js';
-import { makeScope, mineFor, newPerson, PERSON_PASSWORD, submitCertificate, verifyCertificate } from '../support/authorisations.js';
+import { makeScope, mineFor, newPerson, PERSON_PASSWORD, SAW_ORIGINAL, submitCertificate, verifyCertificate } from '../support/authorisations.js';
 import { reevaluatePerson } from '../../server/authorisations/index.js';
 import { insertCertificate } from '../../server/authorisations/certificates.repository.js';
 import { insertSignature } from '../../server/signatures/signatures.repository.js';
@@ -52,8 +52,8 @@ describe('issue on the completing event', () => {
       const a = await submitCertificate(tech, { issuedOn: '2026-01-10', expiresOn: '2028-01-10' });
       const b = await submitCertificate(tech, { kind: 'cpr_aed', issuedOn: '2026-01-12', expiresOn: '2028-01-12' });
       const [ra, rb] = await Promise.all([
-        manager.post(`/api/certificates/${a}/verify`).send({ password: DEMO_PASSWORD }),
-        other.post(`/api/certificates/${b}/verify`).send({ password: PERSON_PASSWORD }),
+        manager.post(`/api/certificates/${a}/verify`).send({ password: DEMO_PASSWORD, ...SAW_ORIGINAL }),
+        other.post(`/api/certificates/${b}/verify`).send({ password: PERSON_PASSWORD, ...SAW_ORIGINAL }),
       ]);
       expect([ra.status, rb.status]).toEqual([200, 200]);
       expect((await periodsOf(tech.id, scope.id)).length, `round ${round}`).toBe(1);
@@ -67,8 +67,8 @@ describe('issue on the completing event', () => {
     const a = await submitCertificate(tech, { issuedOn: '2026-01-10', expiresOn: '2028-01-10' });
     const b = await submitCertificate(tech, { issuedOn: '2026-01-11', expiresOn: '2028-01-11', issuer: 'St John Ambulance' });
     const res = await Promise.all([
-      manager.post(`/api/certificates/${a}/verify`).send({ password: DEMO_PASSWORD }),
-      other.post(`/api/certificates/${b}/verify`).send({ password: PERSON_PASSWORD }),
+      manager.post(`/api/certificates/${a}/verify`).send({ password: DEMO_PASSWORD, ...SAW_ORIGINAL }),
+      other.post(`/api/certificates/${b}/verify`).send({ password: PERSON_PASSWORD, ...SAW_ORIGINAL }),
     ]);
     expect(res.map((r) => r.status)).toEqual([200, 200]);
     expect((await periodsOf(tech.id, scope.id)).length).toBe(1);

@@ -83,7 +83,13 @@ export const externalCertificates = pgTable('external_certificates', {
   reviewedAt: ts('reviewed_at'),
   signatureId: uuid('signature_id').references(() => signatures.id),
   rejectionReason: text('rejection_reason'),
+  // How the checking manager saw it: 'scan' on file, or 'original_seen' in person (where and on which day).
+  // Null on checks recorded before this was asked.
+  checkedHow: text('checked_how'),
+  originalSeenWhere: text('original_seen_where'),
+  originalSeenOn: dateStr('original_seen_on'),
 }, (t) => [
+  check('external_certificates_checked_how_ck', sql`${t.checkedHow} is null or (${t.checkedHow} = 'scan' and ${t.originalSeenWhere} is null) or (${t.checkedHow} = 'original_seen' and ${t.originalSeenWhere} is not null and ${t.originalSeenOn} is not null)`),
   index('external_certificates_holder_idx').on(t.holderId, t.kind, t.validUntil),
   index('external_certificates_valid_until_idx').on(t.validUntil).where(sql`${t.status} = 'verified'`),
   index('external_certificates_submitted_idx').on(t.submittedAt).where(sql`${t.status} = 'submitted'`),

@@ -1,0 +1,4 @@
+ALTER TABLE "external_certificates" ADD COLUMN "checked_how" text;--> statement-breakpoint
+ALTER TABLE "external_certificates" ADD COLUMN "original_seen_where" text;--> statement-breakpoint
+ALTER TABLE "external_certificates" ADD COLUMN "original_seen_on" date;--> statement-breakpoint
+ALTER TABLE "external_certificates" ADD CONSTRAINT "external_certificates_checked_how_ck" CHECK ("external_certificates"."checked_how" is null or ("external_certificates"."checked_how" = 'scan' and "external_certificates"."original_seen_where" is null) or ("external_certificates"."checked_how" = 'original_seen' and "external_certificates"."original_seen_where" is not null and "external_certificates"."original_seen_on" is not null));

@@ -53,7 +53,7 @@ export async function gatherPack(deps: Deps, rows: ReturnType<typeof makeRowEvid
 
   const readings = await readingsThen(db, practicalRows.map((p) => p.practical.id), at, (d) => formatInZone(d, person.timeZone));
   const account = (await findUserById(db, person.id))!;
-  const records = await gatherRecords(db, at, person.id, account.createdAt, practicalRows.map((p) => p.practical), authorisations);
+  const records = await gatherRecords(db, at, person.id, account.createdAt, practicalRows.map((p) => p.practical), authorisations, benchId);
   const files: PackFile[] = [...recordFiles, ...(bench?.latestCheck?.files ?? []), ...records.signoffs.flatMap((s) => s.files)];
   for (const a of authorisations) for (const b of a.basis) for (const e of b.evidence) for (const f of e.files) files.push({ ...f, entity: e.type, entityId: e.id });
   return {

@@ -17,6 +17,12 @@ export function writeRecordedLater(pdf: PdfWriter, r: PackRecords, at: Date, nam
   pdf.text('', { size: 4 });
 }
 
+/** Within the bench section: a manager's decision accepting its Type AC RCD, as it stood then. */
+export function writeBenchDecision(pdf: PdfWriter, r: PackRecords, when: When) {
+  const d = r.benchTypeAcDecision;
+  if (d) pdf.text(`Type AC RCD accepted for practicals by ${d.byName} on ${when(d.at)}: ${d.reason}`, { size: 9, indent: 6, color: WARN });
+}
+
 /** What each practical was held on, and the person's sign-offs with their evidence. */
 export function writeRecordSections(pdf: PdfWriter, r: PackRecords, when: When) {
   pdf.heading('How each practical was set up');

@@ -2,7 +2,7 @@ import { formatInZone } from '../../shared/time.js';
 import { ALERT, MUTED, PdfWriter, WARN } from '../pdf/pdf-document.js';
 import type { IncidentPack } from './incident.types.js';
 import { earlierAckState } from '../../shared/procedures/reread-rule.js';
-import { writeRecordedLater, writeRecordSections } from './incident.pdf.records.js';
+import { writeBenchDecision, writeRecordedLater, writeRecordSections } from './incident.pdf.records.js';
 
 /** The pack as one PDF: what stood at the moment, section by section, with the files listed by hash. */
 export async function renderIncidentPdf(p: IncidentPack): Promise<Uint8Array> {
@@ -45,6 +45,7 @@ export async function renderIncidentPdf(p: IncidentPack): Promise<Uint8Array> {
     const c = b.latestCheck;
     pdf.text(c ? `Latest pre-use check before then: ${when(c.at)} by ${c.personName}, ${c.passed ? 'passed' : 'failed'}${c.notes ? `: ${c.notes}` : ''}.` : 'No pre-use check had been recorded by then.', { color: c?.passed ? undefined : ALERT });
     for (const f of b.flags) pdf.text(`• ${f}`, { size: 9, indent: 6, color: WARN });
+    writeBenchDecision(pdf, p.records, when);
   }
 
   pdf.heading('Test instruments and calibration');

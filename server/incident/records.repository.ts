@@ -20,6 +20,14 @@ export async function signoffsBy(db: Executor, personId: string, at: Date) {
     .orderBy(desc(signoffs.createdAt));
 }
 
+/** The Type AC decision standing for a bench at a moment: the newest made by then. */
+export async function typeAcDecisionAt(db: Executor, benchId: string, at: Date) {
+  const [row] = await db.select({ at: benchTypeAcDecisions.decidedAt, reason: benchTypeAcDecisions.reason, byName: users.name }).from(benchTypeAcDecisions)
+    .innerJoin(users, eq(users.id, benchTypeAcDecisions.decidedBy))
+    .where(and(eq(benchTypeAcDecisions.benchId, benchId), lte(benchTypeAcDecisions.decidedAt, at))).orderBy(desc(benchTypeAcDecisions.decidedAt), desc(benchTypeAcDecisions.id)).limit(1);
+  return row ?? null;
+}
+
 /** What each practical was held on: procedure version, bench and the Type AC decision it carried. */
 export async function practicalSettings(db: Executor, benchIds: string[], versionIds: string[], decisionIds: string[]) {
   const none = Promise.resolve([]);

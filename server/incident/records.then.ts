@@ -2,19 +2,21 @@ import type { Executor } from '../db/client.js';
 import type { RowEvidenceView } from '../../shared/register/views.js';
 import { instrumentLabels } from '../records/records.repository.js';
 import { filesOf, type FileMeta } from '../register/evidence.repository.js';
-import { practicalSettings, signoffsBy } from './records.repository.js';
+import { practicalSettings, signoffsBy, typeAcDecisionAt } from './records.repository.js';
 
 type PracticalRow = { id: string; heldAt: Date; benchId: string; versionId: string; siteId: string; instrumentIds: string[]; crossSiteReason: string | null; typeAcDecisionId: string | null };
 
 /** Sign-offs and practical settings as they stood at a moment, and what the pack shows was recorded later. */
 export interface PackRecords {
   accountCreatedAt: Date;
+  /** The Type AC decision standing then for the bench named for the pack, if any. */
+  benchTypeAcDecision: { byName: string; at: Date; reason: string } | null;
   recordedLater: { scope: string; label: string; effectiveAt: Date; recordedAt: Date; paperAttestedBy: string | null }[];
   practicalSettings: { id: string; heldAt: Date; procedure: string; bench: string; instruments: string[]; crossSiteReason: string | null; typeAcDecision: { byName: string; at: Date; reason: string } | null }[];
   signoffs: { id: string; title: string; procedure: string; stateThen: string; startedAt: Date; submittedAt: Date | null; files: FileMeta[] }[];
 }
 
-export async function gatherRecords(db: Executor, at: Date, personId: string, accountCreatedAt: Date, practicals: PracticalRow[], authorisations: RowEvidenceView[]): Promise<PackRecords> {
+export async function gatherRecords(db: Executor, at: Date, personId: string, accountCreatedAt: Date, practicals: PracticalRow[], authorisations: RowEvidenceView[], benchId?: string): Promise<PackRecords> {
   const s = await practicalSettings(db, [...new Set(practicals.map((p) => p.benchId))], [...new Set(practicals.map((p) => p.versionId))], practicals.flatMap((p) => (p.typeAcDecisionId ? [p.typeAcDecisionId] : [])));
   const labels = await instrumentLabels(db, [...new Set(practicals.flatMap((p) => p.instrumentIds))]);
   const practicalSettingsList = practicals.map((p) => {
@@ -41,7 +43,8 @@ export async function gatherRecords(db: Executor, at: Date, personId: string, ac
     scope: `${a.row.scope.code} ${a.row.scope.title}`, label: e.label, effectiveAt: new Date(e.effectiveAt), recordedAt: new Date(e.recordedAt),
     paperAttestedBy: a.paperRecord?.attestedBy ?? null,
   })));
-  return { accountCreatedAt, recordedLater, practicalSettings: practicalSettingsList, signoffs };
+  const benchTypeAcDecision = benchId ? await typeAcDecisionAt(db, benchId, at) : null;
+  return { accountCreatedAt, benchTypeAcDecision, recordedLater, practicalSettings: practicalSettingsList, signoffs };
 }
 
 type SignoffRow = Awaited<ReturnType<typeof signoffsBy>>[number];

@@ -14,6 +14,7 @@ let t: TestApp;
 let auditor: Awaited<ReturnType<typeof signIn>>;
 let tech: Person;
 let photo: Buffer;
+let cleB1: string;
 const REASON = 'A Type A 30 mA device is fitted ahead of this bench in the sub-board.';
 
 beforeAll(async () => {
@@ -23,6 +24,7 @@ beforeAll(async () => {
   auditor = await signIn(t, DEMO.auditor);
   const proc = await publishRecordsProcedure(t);
   const ids = await lookups(assessor);
+  cleB1 = ids.benches['CLE-B1'];
   tech = await newPerson(t, { name: 'Jana Novotná' });
   const scope = await makeScope(manager, { title: 'Dead work on mains equipment' });
   expect((await manager.post('/api/authorisations/prior').send({
@@ -48,8 +50,8 @@ beforeAll(async () => {
   t.clock.advance(3_600_000);
 });
 
-async function pack(at: string) {
-  const res = await asBytes(auditor.post('/api/incident-packs').send({ personId: tech.id, at }));
+async function pack(at: string, benchId?: string) {
+  const res = await asBytes(auditor.post('/api/incident-packs').send({ personId: tech.id, at, benchId }));
   expect(res.status, res.body.toString()).toBe(200);
   const zip = await JSZip.loadAsync(res.body as Buffer);
   const parser = new PDFParse({ data: new Uint8Array(await zip.file('incident-pack.pdf')!.async('uint8array')) });
@@ -67,6 +69,9 @@ describe('the incident pack holds every record that stood', () => {
     expect(text).toContain('instruments: Ohmwerk CM 40 SN OW40-77120.');
     expect(text).toContain("Bench at another site than the technician's. Reason given: Seconded to Cleveland for the heater regulator week.");
     expect(text).toContain(`Type AC RCD accepted by Jörg Łukasik on 02 Mar 2026, 10:00 CET: ${REASON}`);
+    expect(text).not.toContain('Type AC RCD accepted for practicals by');
+    const withBench = await pack(t.clock.now().toISOString(), cleB1);
+    expect(withBench.text).toContain(`Type AC RCD accepted for practicals by Jörg Łukasik on 02 Mar 2026, 10:00 CET: ${REASON}`);
   });
 
   it('when made, then each sign-off is there with its state then and its evidence, listed by SHA-256 and in the ZIP byte for byte', async () => {

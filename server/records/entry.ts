@@ -31,6 +31,8 @@ const refuse = (field: string, message: string) => unprocessable(`${field}: ${me
 /** Checks one entry against its item and judges it; the returned fields are what gets stored. */
 export async function buildEntry(c: EntryContext): Promise<EntryFields> {
   const { item, body } = c;
+  // Only a practical keeps every reading; nothing else would store the reason.
+  if (body.reason && (c.record.entity !== 'practical' || item.kind !== 'measurement')) throw refuse('reason', 'only a reading of a practical taken again carries a reason');
   const blank: EntryFields = {
     kind: item.kind, checked: null, text: null, evidenceId: null, value: null, didNotTrip: false, unit: null, instrumentId: null,
     expected: null, tolerance: null, verdict: null, judgedBy: null, ruleText: null, source: null, note: body.note || null, recordedAt: c.at, recordedBy: c.actorId,

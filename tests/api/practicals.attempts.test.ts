@@ -38,6 +38,8 @@ describe('every attempt at a reading stays in the record', () => {
     expect(refused.body.error.fields.reason).toBe('this item already has a reading (150 V, failed); say why it is taken again');
     expect(itemByPrompt((await assessor.get(`/api/practicals/${p.id}`)).body, 'Output RMS voltage').entry).toMatchObject({ value: 150, verdict: 'fail' });
     expect(await count('select count(*)::int as n from practical_attempts where practical_id = $1')).toBe(1);
+    const tick = await assessor.put(`/api/practicals/${p.id}/items/${itemByPrompt(p, 'The technician proved dead').id}`).send({ checked: true, reason: 'Ticked again.' });
+    expect(tick.body.error.fields).toEqual({ reason: 'only a reading of a practical taken again carries a reason' });
     expect(await count('select count(*)::int as n from audit_log where entity_id = $1')).toBe(audits);
   });
 

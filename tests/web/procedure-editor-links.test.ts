@@ -1,5 +1,6 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import ProcedureEditView from '@/views/ProcedureEditView.vue';
+import ChecklistView from '@/components/ChecklistView.vue';
 import { fakeFetch, getByRole, messagesBeside, mountWith, nameOf, settle, userWith } from './support';
 
 afterEach(() => {
@@ -68,5 +69,12 @@ describe('linking checklist items to steps in the editor', () => {
     getByRole('button', 'Save the draft').click();
     await settle();
     expect(messagesBeside(stepField(1))).toBe('not a step of this version; choose one of its steps');
+  });
+
+  it('when a published version is read, then each linked item names its step', async () => {
+    fakeFetch(() => undefined);
+    await mountWith(ChecklistView, { user: userWith(['technician']), props: { checklists: version.checklists, steps } });
+    const chips = [...document.querySelector('li')!.querySelectorAll('.v-chip')].map((c) => c.textContent!.trim());
+    expect(chips).toEqual(['Tick box', 'Step 2 (hold point)']);
   });
 });

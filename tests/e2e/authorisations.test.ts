@@ -81,6 +81,9 @@ describe('authorisations in the browser', () => {
     await page.getByRole('navigation', { name: 'Main navigation' }).getByRole('link', { name: 'Certificates' }).click();
     const row = page.getByRole('row', { name: /Tomasz Wójcik.*First aid/ });
     await row.getByRole('button', { name: 'Check' }).click();
+    // No scan is on file for this demo certificate: the manager states they saw the original in person.
+    await page.getByLabel('I saw the original certificate in person').check();
+    await page.getByLabel('Where you saw it').fill('Leipzig workshop office');
     await page.getByLabel('Your password, to sign', { exact: true }).fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign as checked' }).click();
     await page.getByText(/Tomasz Wójcik's First aid certificate is checked/).waitFor();

@@ -5,6 +5,7 @@ import request from 'supertest';
 import { afterAll } from 'vitest';
 import { loadConfig } from '../../server/config.js';
 import { createApp } from '../../server/app.js';
+import type { Logger } from '../../server/logging.js';
 import { SettableClock } from '../../server/clock.js';
 import pg from 'pg';
 import { seedDemoIfEmpty } from '../../server/seed/index.js';
@@ -19,6 +20,8 @@ export interface TestAppOptions {
   seed?: boolean;
   start?: string;
   env?: Record<string, string>;
+  /** Where the app's log lines go (a test that reads them); otherwise logging is off. */
+  logger?: Logger;
   /** false: mail waits in the outbox until the test delivers it (deliverMail), as if the process died. */
   deliverOnCommit?: boolean;
   /** Rewrites the app's database URL (a test puts a proxy it can cut in between). */
@@ -41,10 +44,11 @@ export async function makeTestApp(opts: TestAppOptions = {}) {
     AUDIT_ANCHOR_DIR: mkdtempSync(path.join(os.tmpdir(), 'breakover-anchors-')),
     MAIL_OUTBOX_DIR: outbox,
     SIGNIN_RATE_LIMIT: '1000',
+    LOG_LEVEL: 'silent',
     STATIC_DIR: path.join(os.tmpdir(), 'breakover-no-static'),
     ...opts.env,
   });
-  const built = createApp({ config, clock });
+  const built = createApp({ config, clock, logger: opts.logger });
   // No job queue here: the app delivers in-process as soon as a change that wrote mail has committed.
   if (opts.deliverOnCommit !== false) deliverOnCommit(built.deps.mailer);
   if (opts.seed !== false) await seedDemoIfEmpty(built.deps.db, clock);
@@ -59,9 +63,9 @@ export async function makeTestApp(opts: TestAppOptions = {}) {
     outbox,
     database,
     /** One-off requests; a fresh agent each call (no cookie kept), sending Origin as our pages do. */
-    request: () => withOrigin(built.app),
+    request: () => withOrigin(built.app, config.publicUrl),
     /** An agent that keeps its cookies, sending Origin as our pages do (the API refuses writes without it). */
-    agent: () => withOrigin(built.app),
+    agent: () => withOrigin(built.app, config.publicUrl),
     /** A connection as the database owner, bypassing the application role: for tamper tests only. */
     ownerQuery: async (text: string, params: unknown[] = []) => {
       const c = new pg.Client({ connectionString: database.ownerUrl });
@@ -79,10 +83,10 @@ export async function makeTestApp(opts: TestAppOptions = {}) {
 
 export type TestApp = Awaited<ReturnType<typeof makeTestApp>>;
 
-/** A supertest agent whose every request carries `Origin: PUBLIC_URL`, as a browser on our pages sends it. */
-export function withOrigin(app: Parameters<typeof request.agent>[0]) {
+/** A supertest agent whose every request carries the app's own origin, as a browser on our pages sends it. */
+export function withOrigin(app: Parameters<typeof request.agent>[0], publicUrl = PUBLIC_URL) {
   const agent = request.agent(app);
-  agent.set('Origin', PUBLIC_URL);
+  agent.set('Origin', new URL(publicUrl).origin);
   return agent;
 }
 

@@ -21,9 +21,9 @@ const matrix: MatrixRows = Object.assign({}, ...Object.values(files).map((f) => 
 function plan(r: RouteDef): [Who, number][] {
   const row = matrix[`${r.method.toUpperCase()} ${r.path}`];
   const may = (who: Who) => row === 'public' || row === 'signed-in' || (row ?? []).includes(who as Role);
-  const steps: [Who, number][] = [['admin', may('admin') ? 4 : 1], ['manager', may('manager') ? 3 : 1]];
+  const steps: [Who, number][] = [['admin', may('admin') ? 6 : 1], ['manager', may('manager') ? 4 : 1]];
   const other = (['assessor', 'technician', 'auditor'] as const).find(may);
-  if (!may('admin') && !may('manager') && other) steps.push([other, 4]);
+  if (!may('admin') && !may('manager') && other) steps.push([other, 6]);
   return steps;
 }
 

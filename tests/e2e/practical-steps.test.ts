@@ -1,5 +1,6 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { startBrowserApp } from '../support/browser.js';
+import { chooseOption } from '../support/choose.js';
 import { PUBLIC_URL } from '../support/app.js';
 import { DEMO, signIn } from '../support/people.js';
 import { CIRCUIT, lookups } from '../support/records.js';
@@ -40,10 +41,7 @@ describe('the procedure steps at the bench', () => {
     await page.waitForLoadState('networkidle');
     const volts = page.getByRole('article', { name: /Output RMS voltage/ });
     await volts.getByLabel('Reading in V').fill('188');
-    await volts.getByRole('combobox', { name: 'Instrument used' }).click({ force: true });
-    await page.getByRole('option', { name: 'Ohmwerk DM 61 SN OW61-20417' }).click();
-    await volts.getByText('Ohmwerk DM 61 SN OW61-20417').first().waitFor();
-    await page.getByRole('listbox').waitFor({ state: 'detached' }).catch(() => undefined);
+    await chooseOption(page, volts, 'Instrument used', 'Ohmwerk DM 61 SN OW61-20417');
     await volts.getByRole('button', { name: 'Record the reading' }).click();
     const refusal = volts.getByRole('alert').filter({ hasText: 'hold point 1 (step 2: "Connections checked before switch-on.") is not witnessed yet' });
     await refusal.waitFor();

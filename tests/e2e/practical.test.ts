@@ -1,5 +1,6 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { startBrowserApp } from '../support/browser.js';
+import { chooseOption } from '../support/choose.js';
 import { PUBLIC_URL } from '../support/app.js';
 import { DEMO, DEMO_PASSWORD, signIn } from '../support/people.js';
 import { publishRecordsProcedure } from '../support/records.js';
@@ -42,11 +43,7 @@ describe('a practical recorded at the bench in the browser', () => {
     const reading = volts.getByLabel('Reading in V');
     expect(await reading.getAttribute('inputmode')).toBe('decimal');
     await reading.fill('150');
-    await volts.getByRole('combobox', { name: 'Instrument used' }).click({ force: true });
-    await page.getByRole('option', { name: 'Ohmwerk DM 61 SN OW61-20417' }).click();
-    // Record only once the choice has landed in the field (a slow machine may still be closing the menu).
-    await volts.getByText('Ohmwerk DM 61 SN OW61-20417').first().waitFor();
-    await page.getByRole('listbox').waitFor({ state: 'detached' }).catch(() => undefined);
+    await chooseOption(page, volts, 'Instrument used', 'Ohmwerk DM 61 SN OW61-20417');
     await volts.getByRole('button', { name: 'Record the reading' }).click();
     const judged = volts.getByRole('complementary', { name: /Expected value and verdict/ });
     await judged.getByTestId('verdict').filter({ hasText: /^\s*Outside the rule: failed\s*$/ }).waitFor();
@@ -56,10 +53,7 @@ describe('a practical recorded at the bench in the browser', () => {
 
     const angle = page.getByRole('article', { name: /Firing angle/ });
     await angle.getByLabel('Reading in °').fill('74,5');
-    await angle.getByRole('combobox', { name: 'Instrument used' }).click({ force: true });
-    await page.getByRole('option', { name: 'Brightline DP 70 SN BL70-5531' }).click();
-    await angle.getByText('Brightline DP 70 SN BL70-5531').first().waitFor();
-    await page.getByRole('listbox').waitFor({ state: 'detached' }).catch(() => undefined);
+    await chooseOption(page, angle, 'Instrument used', 'Brightline DP 70 SN BL70-5531');
     await angle.getByRole('button', { name: 'Record the reading' }).click();
     await angle.getByTestId('verdict').filter({ hasText: /^\s*Within the rule: passed\s*$/ }).waitFor();
     expect(await page.getByTestId('progress').textContent()).toBe('1 of 4 complete');

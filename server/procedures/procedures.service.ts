@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import type { Deps } from '../deps.js';
 import type { Actor, AppAbility } from '../../shared/abilities.js';
 import { localDate } from '../../shared/time.js';
+import { COMPUTED_NEEDS_PRACTICAL, computedRuleOutsidePractical } from '../../shared/schemas/checklists.js';
 import type { CreateProcedureBody, ProcedureListQuery, SaveDraftBody } from '../../shared/schemas/procedures.js';
 import { accessibleWhere } from '../authz/casl-sql.js';
 import { procedureVersions } from '../db/schema/index.js';
@@ -117,6 +118,8 @@ function withKeys(body: SaveDraftBody): VersionContent {
   unique(steps.map((s) => s.key), (i) => `steps.${i}.key`);
   unique(checklists.map((c) => c.key), (i) => `checklists.${i}.key`);
   checklists.forEach((c, ci) => unique(c.items.map((i) => i.key), (i) => `checklists.${ci}.items.${i}.key`));
+  const ruleField = computedRuleOutsidePractical(checklists);
+  if (ruleField) throw unprocessable(`${ruleField}: ${COMPUTED_NEEDS_PRACTICAL}`, { [ruleField]: COMPUTED_NEEDS_PRACTICAL });
   const stepKeys = new Set(steps.map((s) => s.key));
   checklists.forEach((c, ci) => c.items.forEach((i, ii) => {
     const field = `checklists.${ci}.items.${ii}.stepKey`;

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { SeedStep } from './index.js';
-import { checklistSchema } from '../../shared/schemas/checklists.js';
+import { checklistSchema, COMPUTED_NEEDS_PRACTICAL, computedRuleOutsidePractical } from '../../shared/schemas/checklists.js';
 import { APPROVAL_MEANING, ACKNOWLEDGEMENT_MEANING } from '../../shared/schemas/procedures.js';
 import { addDays, addMonths } from '../../shared/procedures/dates.js';
 import { localDate } from '../../shared/time.js';
@@ -63,6 +63,9 @@ export const seedProcedures: SeedStep = async (tx, clock, audit, ctx) => {
 };
 
 function contentOf(v: SeedVersion, keyOf: (id: string) => string) {
+  // The demo keeps to the rule the editor enforces.
+  const misplaced = computedRuleOutsidePractical(v.checklists);
+  if (misplaced) throw new Error(`${v.title} ${misplaced}: ${COMPUTED_NEEDS_PRACTICAL}`);
   const stepOf = (id?: string) => (id && v.steps.some((s) => s.id === id) ? keyOf(id) : null);
   return {
     steps: v.steps.map((s) => ({ key: keyOf(s.id), text: s.text, caution: s.caution ?? null, holdPoint: s.holdPoint ?? false })),

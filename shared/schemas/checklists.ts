@@ -87,3 +87,17 @@ export function unitOfRule(rule: AcceptanceRule): string | null {
   if (rule.type === 'computed') return COMPUTED_QUANTITIES[rule.quantity].unit;
   return null;
 }
+
+/** Only a practical has a circuit under test; anywhere else a computed expectation could never be judged. */
+export const COMPUTED_NEEDS_PRACTICAL =
+  'a computed value needs the circuit under test, which only a practical has; use a fixed range or a published limit, or leave it to the assessor';
+
+/** The first computed-value rule on a checklist that is not a practical assessment, named as its field. */
+export function computedRuleOutsidePractical(checklists: readonly { kind: ChecklistKind; items: readonly { kind: string; rule?: { type: string } | null }[] }[]): string | null {
+  for (const [ci, c] of checklists.entries()) {
+    if (c.kind === 'practical-assessment') continue;
+    const ii = c.items.findIndex((i) => i.rule?.type === 'computed');
+    if (ii >= 0) return `checklists.${ci}.items.${ii}.rule`;
+  }
+  return null;
+}

@@ -150,6 +150,26 @@ describe('procedure lifecycle', () => {
     expect(rule.body.error.fields).toEqual({ 'checklists.0.items.0.unit': 'this rule is in ms' });
   });
 
+  it('when a self sign-off or bench pre-use checklist is given a computed-value rule, then 422 names the rule and the draft is unchanged', async () => {
+    const d = await createDraft(manager);
+    const before = (await manager.get(`/api/procedures/${d.id}/versions/${d.versionId}`)).body;
+    const computed = { kind: 'measurement', prompt: 'Output RMS voltage at the mid setting', unit: 'V', rule: { type: 'computed', quantity: 'output-rms-voltage', tolerance: { mode: 'relative', percent: 8 } } } as const;
+    const tick = { kind: 'tick', prompt: 'Clips secure' } as const;
+    for (const kind of ['self-sign-off', 'bench-pre-use'] as const) {
+      const res = await manager.put(`/api/procedures/${d.id}/versions/${d.versionId}`).send(draftBody({
+        checklists: [{ kind: 'practical-assessment', title: 'Assessor', items: [computed] }, { kind, title: 'Mine', items: [tick, tick, computed] }],
+      }));
+      expect(res.status).toBe(422);
+      expect(res.body.error.fields).toEqual({ 'checklists.1.items.2.rule': 'a computed value needs the circuit under test, which only a practical has; use a fixed range or a published limit, or leave it to the assessor' });
+    }
+    const after = (await manager.get(`/api/procedures/${d.id}/versions/${d.versionId}`)).body;
+    expect(after.checklists).toEqual(before.checklists);
+    expect(await auditActions(d.versionId)).toEqual(['procedure.draft_saved']);
+    // The same rule on a practical assessment is what practicals judge against.
+    const ok = await manager.put(`/api/procedures/${d.id}/versions/${d.versionId}`).send(draftBody({ checklists: [{ kind: 'practical-assessment', title: 'Assessor', items: [computed] }] }));
+    expect(ok.status).toBe(200);
+  });
+
   it('when an auditor or technician tries to write, then 403', async () => {
     const d = await createDraft(manager);
     expect((await auditor.post('/api/procedures').send({ code: 'T-AUD-1', title: 'No', category: 'general', reviewPeriodMonths: 12 })).status).toBe(403);

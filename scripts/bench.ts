@@ -38,7 +38,8 @@ async function main() {
     const url = `postgres://breakover_app@127.0.0.1:${port}/bench`;
     await runMigrations(ownerUrl);
     const clock = new SettableClock('2026-06-01T08:00:00Z');
-    const config = loadConfig({ DATABASE_URL: url, SESSION_SECRET: 'bench-secret-'.padEnd(40, 'x'), AUDIT_KEY: 'b0'.repeat(32), AUDIT_ANCHOR_DIR: path.join(parent, 'anchors'), SIGNIN_RATE_LIMIT: '100000', MAIL_OUTBOX_DIR: path.join(parent, 'outbox'), STATIC_DIR: path.join(parent, 'none') });
+    // Request lines are not what is measured: only warnings and errors are logged unless LOG_LEVEL says more.
+    const config = loadConfig({ DATABASE_URL: url, SESSION_SECRET: 'bench-secret-'.padEnd(40, 'x'), AUDIT_KEY: 'b0'.repeat(32), AUDIT_ANCHOR_DIR: path.join(parent, 'anchors'), SIGNIN_RATE_LIMIT: '100000', MAIL_OUTBOX_DIR: path.join(parent, 'outbox'), STATIC_DIR: path.join(parent, 'none'), LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' });
     const built = createApp({ config, clock });
     const ctx: BenchContext = { ...built, clock, url, http: request.agent(built.app).set('Origin', new URL(built.deps.config.publicUrl).origin), analyze: () => analyzeAsOwner(ownerUrl) };
     const rows: string[][] = [];

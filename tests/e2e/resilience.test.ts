@@ -6,7 +6,8 @@ import path from 'node:path';
 import { freePort } from '../../scripts/lib/ports.js';
 import { DEMO_PASSWORD } from '../../server/seed/demo-people.js';
 import { DEMO } from '../support/people.js';
-import { clusterStopped, pgCtl, postmasterPid, serverPid, startNpm } from '../support/supervised.js';
+import { clusterStopped, pgCtl, postmasterPid, serverPid } from '../support/supervised.js';
+import { startInstall } from '../support/installation.js';
 import { expectOnlySuccessOr503, requestLoop } from '../support/request-loop.js';
 
 // One `npm start` for the file: its database restarted and killed under requests, then its server killed.
@@ -31,7 +32,7 @@ const sessionOk = async () => (await fetch(`${base}/api/session`, { headers: { c
 beforeAll(async () => {
   const env = { BREAKOVER_DATA_DIR: dataDir, PGPORT: String(await freePort()), PORT: String(await freePort()), SKIP_BUILD: '1' };
   base = `http://localhost:${env.PORT}`;
-  npm = await startNpm(env);
+  npm = await startInstall(env);
   const res = await signIn(DEMO.manager);
   expect(res.status).toBe(200);
   cookie = res.headers.get('set-cookie')!.split(';')[0];

@@ -1,9 +1,10 @@
 import { describe, it, expect, afterAll } from 'vitest';
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, chmodSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { freePort } from '../../scripts/lib/ports.js';
+import { startInstall } from '../support/installation.js';
 import { DEMO_PASSWORD } from '../../server/seed/demo-people.js';
 
 // The whole `npm start` path, as a user runs it: then SIGKILL of the server and of the database.
@@ -24,31 +25,6 @@ afterAll(() => {
   rmSync(dataDir, { recursive: true, force: true });
 });
 
-async function start(env: Record<string, string>): Promise<{ proc: ChildProcess; output: () => string }> {
-  const proc = spawn(process.execPath, ['scripts/bootstrap.mjs', 'start'], {
-    cwd: path.resolve('.'),
-    env: { ...process.env, ...env, DATABASE_URL: '', DATABASE_OWNER_URL: '' },
-    detached: true,
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  let out = '';
-  proc.stdout!.on('data', (c) => (out += c));
-  proc.stderr!.on('data', (c) => (out += c));
-  await new Promise<void>((resolve, reject) => {
-    const timer = setInterval(() => {
-      if (out.includes('Breakover is running at')) {
-        clearInterval(timer);
-        resolve();
-      }
-    }, 100);
-    proc.on('exit', (code) => {
-      clearInterval(timer);
-      reject(new Error(`npm start exited with ${code}:\n${out}`));
-    });
-  });
-  return { proc, output: () => out };
-}
-
 async function signedIn(base: string) {
   const res = await fetch(`${base}/api/session`, { method: 'POST', headers: { 'content-type': 'application/json', origin: base }, body: JSON.stringify({ email: 'admin@demo.breakover.test', password: DEMO_PASSWORD }) });
   expect(res.status).toBe(200);
@@ -59,7 +35,7 @@ describe('npm start survives SIGKILL', () => {
   it('when the server and the database are killed with SIGKILL, then a second start keeps every record', async () => {
     const env = { BREAKOVER_DATA_DIR: dataDir, PGPORT: String(await freePort()), PORT: String(await freePort()), SKIP_BUILD: '1' };
     const base = `http://localhost:${env.PORT}`;
-    const first = await start(env);
+    const first = await startInstall(env);
     child = first.proc;
     expect(first.output()).toContain('technician');
     const cookie = await signedIn(base);
@@ -74,7 +50,7 @@ describe('npm start survives SIGKILL', () => {
     process.kill(postmaster, 'SIGKILL');
     await new Promise((r) => setTimeout(r, 500));
 
-    const second = await start(env);
+    const second = await startInstall(env);
     child = second.proc;
     expect(second.output()).not.toContain('seeded the demo scenario');
     const again = await signedIn(base);

@@ -1,34 +1,9 @@
 // `npm start` as a user runs it, in a data folder of its own, and the processes it looks after.
-import { execFile, spawn, type ChildProcess } from 'node:child_process';
+import { execFile, type ChildProcess } from 'node:child_process';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { promisify } from 'node:util';
 import { findPostgresBin } from '../../scripts/lib/cluster.js';
-
-export async function startNpm(env: Record<string, string>): Promise<{ proc: ChildProcess; output: () => string }> {
-  const proc = spawn(process.execPath, ['scripts/bootstrap.mjs', 'start'], {
-    cwd: path.resolve('.'),
-    // Its own key and anchors in its data folder, not the test runner's.
-    env: { ...process.env, ...env, DATABASE_URL: '', DATABASE_OWNER_URL: '', AUDIT_KEY: undefined, AUDIT_ANCHOR_DIR: undefined },
-    detached: true,
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  let out = '';
-  proc.stdout!.on('data', (c) => (out += c));
-  proc.stderr!.on('data', (c) => (out += c));
-  await new Promise<void>((resolve, reject) => {
-    const timer = setInterval(() => {
-      if (!out.includes('Breakover is running at')) return;
-      clearInterval(timer);
-      resolve();
-    }, 100);
-    proc.on('exit', (code) => {
-      clearInterval(timer);
-      reject(new Error(`npm start exited with ${code}:\n${out}`));
-    });
-  });
-  return { proc, output: () => out };
-}
 
 /** The process ids below `pid` whose command line contains `needle` (from /proc). */
 export function descendants(pid: number, needle: string): number[] {

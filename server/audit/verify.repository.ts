@@ -1,18 +1,10 @@
 import { sql } from 'drizzle-orm';
 import type { Executor } from '../db/client.js';
 import { rowsOf } from '../register/rows.js';
+import type { SealedFields } from './audit.hash.js';
 
-export interface WalkRow {
-  id: number;
-  at: Date;
-  actorId: string | null;
-  action: string;
-  entity: string;
-  entityId: string;
-  oldValues: unknown;
-  newValues: unknown;
-  seal: { prevId: number; hmac: string } | null;
-}
+/** An entry as sealing hashed it, with its seal when it has one. */
+export type WalkRow = SealedFields & { seal: { prevId: number; hmac: string } | null };
 
 type Raw = {
   id: string; at: Date; actor_id: string | null; action: string; entity: string; entity_id: string; old_values: unknown; new_values: unknown;
